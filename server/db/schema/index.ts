@@ -1,0 +1,2 @@
+// Every table of the registry, one file per table group.
+export * from './clinics';

@@ -1,0 +1,5 @@
+/** Every client URL, in one place. */
+export const paths = {
+  home: '/',
+  signIn: '/sign-in',
+} as const;
