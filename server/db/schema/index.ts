@@ -1,2 +1,3 @@
 // Every table of the registry, one file per table group.
 export * from './clinics';
+export * from './users';
