@@ -1,3 +1,6 @@
 // Every table of the registry, one file per table group.
 export * from './clinics';
 export * from './users';
+export * from './reference';
+export * from './episodes';
+export * from './registry';
