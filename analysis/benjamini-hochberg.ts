@@ -28,7 +28,9 @@ export function benjaminiHochberg(pValues: readonly number[]): number[] {
   let running = 1;
   for (let rank = m; rank >= 1; rank--) {
     const idx = order[rank - 1] ?? 0;
-    const candidate = ((pValues[idx] ?? 1) * m) / rank;
+    const p = pValues[idx] ?? 1;
+    // m·p/rank >= p in exact arithmetic; max() keeps that true after rounding.
+    const candidate = Math.max(p, (p * m) / rank);
     if (candidate < running) running = candidate;
     adjusted[idx] = running;
   }

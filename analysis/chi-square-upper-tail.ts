@@ -18,7 +18,8 @@ import jStat from 'jstat';
  */
 export function chiSquareUpperTail(x: number, df: number): number {
   if (!Number.isFinite(x) || x < 0) throw new RangeError(`chiSquareUpperTail: x must be finite and >= 0, got ${x}`);
-  if (!Number.isInteger(df) || df < 1) throw new RangeError(`chiSquareUpperTail: df must be a positive integer, got ${df}`);
+  if (!Number.isInteger(df) || df < 1)
+    throw new RangeError(`chiSquareUpperTail: df must be a positive integer, got ${df}`);
   if (x === 0) return 1;
   const p = 1 - jStat.chisquare.cdf(x, df);
   return p < 0 ? 0 : p > 1 ? 1 : p;

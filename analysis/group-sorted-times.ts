@@ -1,5 +1,6 @@
 import type { GroupedObs } from './types';
 import { assertValidTime } from './assert-valid-time';
+import { sortNonNegative } from './sort-non-negative';
 
 /** Event and censoring times per group, each group's block sorted ascending. */
 export type GroupedTimes = {
@@ -18,13 +19,15 @@ export type GroupedTimes = {
 /**
  * Group, split and sort observation times.
  *
- * The grouped counterpart of `splitSortTimes`: one pass validates the input
- * and counts events and censorings per group, a second pass copies the times
- * into contiguous per-group blocks of two typed arrays, and each block is
- * sorted with the native `Float64Array` sort. Groups are ordered by label
+ * The grouped counterpart of `splitSortTimes`: one pass over the objects
+ * validates the input, counts events and censorings per group and copies
+ * time, event flag and group index into typed arrays; a second pass over
+ * those arrays fills contiguous per-group blocks of two typed arrays, and each block is
+ * sorted with `sortNonNegative` (a radix sort). Groups are ordered by label
  * (plain code-unit comparison), so the result does not depend on row order.
  *
- * Cost: O(n log n) time, O(n) extra memory; one `Map` lookup per observation.
+ * Cost: O(n) time (radix sort), O(n) extra memory (~21 bytes per observation);
+ * one `Map` lookup per observation.
  *
  * @param obs - observations; `time` finite and >= 0, `event` boolean,
  *   `group` a string. Not modified.
@@ -41,6 +44,8 @@ export function groupSortedTimes(obs: readonly GroupedObs[], caller: string): Gr
   if (n === 0) throw new RangeError(`${caller}: at least one observation is required`);
   const firstSeen = new Map<string, number>();
   const groupOf = new Int32Array(n);
+  const times = new Float64Array(n);
+  const isEvent = new Uint8Array(n);
   const evCounts: number[] = [];
   const ceCounts: number[] = [];
   for (let i = 0; i < n; i++) {
@@ -57,8 +62,11 @@ export function groupSortedTimes(obs: readonly GroupedObs[], caller: string): Gr
       ceCounts.push(0);
     }
     groupOf[i] = g;
-    if (o.event === true) evCounts[g] = (evCounts[g] ?? 0) + 1;
-    else if (o.event === false) ceCounts[g] = (ceCounts[g] ?? 0) + 1;
+    times[i] = o.time + 0; // -0 becomes +0 for the bit-pattern sort
+    if (o.event === true) {
+      isEvent[i] = 1;
+      evCounts[g] = (evCounts[g] ?? 0) + 1;
+    } else if (o.event === false) ceCounts[g] = (ceCounts[g] ?? 0) + 1;
     else throw new RangeError(`${caller}: obs[${i}].event must be true or false, got ${String(o.event)}`);
   }
 
@@ -88,14 +96,20 @@ export function groupSortedTimes(obs: readonly GroupedObs[], caller: string): Gr
   const evPos = eventStart.slice(0, k);
   const cePos = censorStart.slice(0, k);
   for (let i = 0; i < n; i++) {
-    const o = obs[i] as GroupedObs; // validated in the first pass
     const g = groupOf[i] ?? 0;
-    if (o.event) eventTimes[evPos[g]++] = o.time;
-    else censorTimes[cePos[g]++] = o.time;
+    if (isEvent[i] === 1) {
+      const p = evPos[g] ?? 0;
+      eventTimes[p] = times[i] ?? 0;
+      evPos[g] = p + 1;
+    } else {
+      const p = cePos[g] ?? 0;
+      censorTimes[p] = times[i] ?? 0;
+      cePos[g] = p + 1;
+    }
   }
   for (let g = 0; g < k; g++) {
-    eventTimes.subarray(eventStart[g], eventStart[g + 1]).sort();
-    censorTimes.subarray(censorStart[g], censorStart[g + 1]).sort();
+    sortNonNegative(eventTimes.subarray(eventStart[g], eventStart[g + 1]));
+    sortNonNegative(censorTimes.subarray(censorStart[g], censorStart[g + 1]));
   }
   return { labels, sizes, eventTimes, eventStart, censorTimes, censorStart };
 }

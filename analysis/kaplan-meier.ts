@@ -1,8 +1,8 @@
 import type { ConfType, KaplanMeierOptions, KaplanMeierResult, KaplanMeierStep, Obs } from './types';
 import { twoSidedZ } from './two-sided-z';
 import { splitSortTimes } from './split-sort-times';
-import { kmBound } from './km-bound';
-import { curveMedian } from './curve-median';
+import { kmInterval } from './km-interval';
+import { MedianTracker } from './median-tracker';
 
 const CONF_TYPES: readonly ConfType[] = ['log', 'log-log', 'plain'];
 
@@ -10,7 +10,7 @@ const CONF_TYPES: readonly ConfType[] = ['log', 'log-log', 'plain'];
  * Kaplan-Meier product-limit estimate.
  *
  * Estimates the share still "not recovered" S(t) from right-censored times
- * (Kaplan & Meier 1958), with the Greenwood standard error of S itself,
+ * (Kaplan & Meier 1958, J Am Stat Assoc; cited from memory), with the Greenwood standard error of S itself,
  * SE = S·√Σ d/(n(n−d)), and a pointwise confidence interval. Conventions
  * follow R `survival::survfit` (survival 3.5): at a tied time events are
  * counted before censorings (someone censored at t is at risk at t); the
@@ -20,11 +20,13 @@ const CONF_TYPES: readonly ConfType[] = ['log', 'log-log', 'plain'];
  * is undefined: `stdErr` is `NaN` and both bounds are `null` (R prints NaN /
  * NA). Under `'log-log'` the bounds are also `null` while S = 1. The median
  * is the first time with S <= 0.5, or the midpoint rule of
- * {@link curveMedian} when S = 0.5 exactly; its limits apply the same rule to
+ * {@link MedianTracker} when S = 0.5 exactly; its limits apply the same rule to
  * the lower and upper bound columns (`null` = not reached).
  *
- * Cost: O(n log n) for the sort plus O(n) for the sweep; the output has one
- * object per distinct time.
+ * Cost: O(n) time for the radix sort (`sortNonNegative`; the native
+ * O(n log n) sort below 65 536 values) plus O(n) for the sweep; O(n) memory.
+ * The output has one object per distinct time, so with continuous times it
+ * is the output itself (~n objects) that dominates time and memory.
  *
  * @param obs - observations; `time` finite and >= 0 (weeks), `event` boolean.
  *   Not modified.
@@ -49,11 +51,17 @@ export function kaplanMeier(obs: readonly Obs[], opts: KaplanMeierOptions = {}):
   const nCe = censorTimes.length;
 
   const steps: KaplanMeierStep[] = [];
+  const interval = new Float64Array(2);
   let i = 0;
   let j = 0;
   let nRisk = obs.length;
   let survival = 1;
   let greenwood = 0;
+  // Values carried over censoring-only steps, where S and its SE do not change.
+  let stdErr = 0;
+  let lower: number | null = null;
+  let upper: number | null = null;
+  const medians = [new MedianTracker(), new MedianTracker(), new MedianTracker()] as const;
   while (i < nEv || j < nCe) {
     const te = i < nEv ? (eventTimes[i] ?? Infinity) : Infinity;
     const tc = j < nCe ? (censorTimes[j] ?? Infinity) : Infinity;
@@ -68,30 +76,27 @@ export function kaplanMeier(obs: readonly Obs[], opts: KaplanMeierOptions = {}):
       c++;
       j++;
     }
-    if (d > 0) {
-      survival *= (nRisk - d) / nRisk;
-      greenwood += d < nRisk ? d / (nRisk * (nRisk - d)) : Infinity;
+    if (d > 0 || steps.length === 0) {
+      if (d > 0) {
+        survival *= (nRisk - d) / nRisk;
+        greenwood += d < nRisk ? d / (nRisk * (nRisk - d)) : Infinity;
+      }
+      stdErr = survival > 0 ? survival * Math.sqrt(greenwood) : NaN;
+      kmInterval(survival, greenwood, z, confType, interval);
+      const lo = interval[0] ?? NaN;
+      const up = interval[1] ?? NaN;
+      lower = Number.isNaN(lo) ? null : lo;
+      upper = Number.isNaN(up) ? null : up;
+      medians[0].update(t, survival);
+      medians[1].update(t, lower);
+      medians[2].update(t, upper);
     }
-    const positive = survival > 0;
-    steps.push({
-      time: t,
-      nRisk,
-      nEvent: d,
-      nCensor: c,
-      survival,
-      stdErr: positive ? survival * Math.sqrt(greenwood) : NaN,
-      lower: positive ? kmBound(survival, greenwood, z, confType, -1) : null,
-      upper: positive ? kmBound(survival, greenwood, z, confType, 1) : null,
-    });
+    steps.push({ time: t, nRisk, nEvent: d, nCensor: c, survival, stdErr, lower, upper });
     nRisk -= d + c;
   }
 
   return {
     steps,
-    median: {
-      estimate: curveMedian(steps, 'survival'),
-      lower: curveMedian(steps, 'lower'),
-      upper: curveMedian(steps, 'upper'),
-    },
+    median: { estimate: medians[0].result(), lower: medians[1].result(), upper: medians[2].result() },
   };
 }

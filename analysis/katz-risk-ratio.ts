@@ -6,8 +6,8 @@ import { assertCount } from './assert-count';
  * Crude risk ratio with the Katz log interval.
  *
  * RR = (a/n1)/(c/n0) for one 2×2 table, with the CI exp(ln RR ∓ z·SE),
- * SE = √(1/a − 1/n1 + 1/c − 1/n0) (Katz, Baptista, Azen & Pike 1978;
- * Rothman 2012, ch. 7); the same as `scipy.stats.contingency.relative_risk`
+ * SE = √(1/a − 1/n1 + 1/c − 1/n0) (Katz, Baptista, Azen & Pike 1978, cited from memory);
+ * the same as `scipy.stats.contingency.relative_risk`
  * and R `epiR::epi.2by2` "RR.crude.wald".
  *
  * Cost: O(1).

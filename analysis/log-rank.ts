@@ -7,7 +7,7 @@ import { chiSquareUpperTail } from './chi-square-upper-tail';
  * Log-rank test for k >= 2 groups.
  *
  * Compares time-to-event distributions across groups with the Mantel-Haenszel
- * (Mantel 1966; Peto & Peto 1972) log-rank statistic, rho = 0 in the
+ * (Mantel 1966; Peto & Peto 1972; both cited from memory) log-rank statistic, rho = 0 in the
  * Harrington-Fleming family, as R `survival::survdiff` computes it: at each
  * distinct event time t with n at risk and D events, group g contributes
  * E_g = D·n_g/n and the hypergeometric covariance
@@ -20,7 +20,9 @@ import { chiSquareUpperTail } from './chi-square-upper-tail';
  * informative event time, the covariance matrix is singular; it is then
  * handled as a generalised inverse and `df` is its rank (less than k − 1).
  *
- * Cost: O(n log n) for the per-group sorts plus O(T·k²) for T distinct times.
+ * Cost: O(n) for the per-group radix sorts (O(n log n) for small groups),
+ * O(T·k) for the sweep over T distinct times, O(E·k²) for the covariance at
+ * E event times and O(k³) for the solve; O(n) memory.
  *
  * @param obs - observations with `time` (finite, >= 0), `event` (boolean)
  *   and `group` (string). Not modified.
@@ -41,6 +43,13 @@ export function logRank(obs: readonly GroupedObs[]): LogRankResult {
   const atRisk = Float64Array.from(sizes);
   const pe = eventStart.slice(0, k);
   const pc = censorStart.slice(0, k);
+  // Current head (smallest unvisited time) of each group's two sorted blocks; Infinity when done.
+  const headE = new Float64Array(k);
+  const headC = new Float64Array(k);
+  for (let g = 0; g < k; g++) {
+    headE[g] = (pe[g] ?? 0) < (eventStart[g + 1] ?? 0) ? (eventTimes[pe[g] ?? 0] ?? Infinity) : Infinity;
+    headC[g] = (pc[g] ?? 0) < (censorStart[g + 1] ?? 0) ? (censorTimes[pc[g] ?? 0] ?? Infinity) : Infinity;
+  }
   const d = new Float64Array(k);
   const c = new Float64Array(k);
   const observed = new Float64Array(k);
@@ -49,27 +58,36 @@ export function logRank(obs: readonly GroupedObs[]): LogRankResult {
 
   let total = obs.length;
   while (total > 0) {
-    // The next distinct time is the smallest head of the 2k sorted blocks.
     let t = Infinity;
     for (let g = 0; g < k; g++) {
-      const p = pe[g] ?? 0;
-      if (p < (eventStart[g + 1] ?? 0) && (eventTimes[p] ?? Infinity) < t) t = eventTimes[p] ?? Infinity;
-      const q = pc[g] ?? 0;
-      if (q < (censorStart[g + 1] ?? 0) && (censorTimes[q] ?? Infinity) < t) t = censorTimes[q] ?? Infinity;
+      const he = headE[g] ?? Infinity;
+      const hc = headC[g] ?? Infinity;
+      if (he < t) t = he;
+      if (hc < t) t = hc;
     }
     let events = 0;
     for (let g = 0; g < k; g++) {
-      let p = pe[g] ?? 0;
-      const endE = eventStart[g + 1] ?? 0;
-      while (p < endE && eventTimes[p] === t) p++;
-      d[g] = p - (pe[g] ?? 0);
-      pe[g] = p;
-      let q = pc[g] ?? 0;
-      const endC = censorStart[g + 1] ?? 0;
-      while (q < endC && censorTimes[q] === t) q++;
-      c[g] = q - (pc[g] ?? 0);
-      pc[g] = q;
-      events += d[g] ?? 0;
+      let dg = 0;
+      if (headE[g] === t) {
+        let p = pe[g] ?? 0;
+        const end = eventStart[g + 1] ?? 0;
+        while (p < end && eventTimes[p] === t) p++;
+        dg = p - (pe[g] ?? 0);
+        pe[g] = p;
+        headE[g] = p < end ? (eventTimes[p] ?? Infinity) : Infinity;
+      }
+      let cg = 0;
+      if (headC[g] === t) {
+        let q = pc[g] ?? 0;
+        const end = censorStart[g + 1] ?? 0;
+        while (q < end && censorTimes[q] === t) q++;
+        cg = q - (pc[g] ?? 0);
+        pc[g] = q;
+        headC[g] = q < end ? (censorTimes[q] ?? Infinity) : Infinity;
+      }
+      d[g] = dg;
+      c[g] = cg;
+      events += dg;
     }
     if (events > 0) {
       for (let g = 0; g < k; g++) {
@@ -119,4 +137,3 @@ export function logRank(obs: readonly GroupedObs[]): LogRankResult {
     })),
   };
 }
-

@@ -54,7 +54,9 @@ export function mantelHaenszelRiskRatio(strata: readonly RiskStratum[], confLeve
     varNum += ((a + c) * n1 * n0 - a * c * n) / (n * n);
   });
   if (num === 0 || den === 0) {
-    throw new RangeError('mantelHaenszelRiskRatio: the pooled ratio is 0 or infinite (no events in one arm); no log-scale CI');
+    throw new RangeError(
+      'mantelHaenszelRiskRatio: the pooled ratio is 0 or infinite (no events in one arm); no log-scale CI',
+    );
   }
   const riskRatio = num / den;
   const se = Math.sqrt(varNum / (num * den));

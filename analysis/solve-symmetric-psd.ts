@@ -3,7 +3,7 @@
  *
  * Solves A·x = b by Gaussian elimination without row exchanges, which is
  * stable for symmetric positive (semi-)definite A (Golub & Van Loan, Matrix
- * Computations, §4.2). A pivot that is not larger than `tolerance` times the
+ * Computations, §4.2; cited from memory). A pivot that is not larger than `tolerance` times the
  * largest diagonal entry is treated as zero: for a PSD matrix its whole
  * remaining row and column are then zero, the unknown is set to 0 and the rank
  * drops by one. The result is a generalised-inverse solution, so xᵀb is the
@@ -26,9 +26,12 @@ export function solveSymmetricPsd(
   tolerance = 1e-10,
 ): { solution: Float64Array; rank: number } {
   const m = rhs.length;
-  if (matrix.length !== m * m) throw new RangeError('solveSymmetricPsd: matrix must be m×m for a right-hand side of length m');
-  for (const v of matrix) if (!Number.isFinite(v)) throw new RangeError('solveSymmetricPsd: matrix entries must be finite');
-  for (const v of rhs) if (!Number.isFinite(v)) throw new RangeError('solveSymmetricPsd: right-hand side must be finite');
+  if (matrix.length !== m * m)
+    throw new RangeError('solveSymmetricPsd: matrix must be m×m for a right-hand side of length m');
+  for (const v of matrix)
+    if (!Number.isFinite(v)) throw new RangeError('solveSymmetricPsd: matrix entries must be finite');
+  for (const v of rhs)
+    if (!Number.isFinite(v)) throw new RangeError('solveSymmetricPsd: right-hand side must be finite');
   const a = matrix.slice();
   const y = rhs.slice();
   let scale = 0;

@@ -1,17 +1,19 @@
 import type { Obs } from './types';
 import { assertValidTime } from './assert-valid-time';
+import { sortNonNegative } from './sort-non-negative';
 
 /**
  * Split and sort observation times.
  *
  * Copies the times of `obs` into two typed arrays, one for events and one for
- * censorings, each sorted ascending with the native `Float64Array` sort. A
+ * censorings, each sorted ascending (`sortNonNegative`, a radix sort). A
  * single merge sweep over the two arrays then visits every distinct time with
  * its event and censoring counts, which gives the usual survival tie rule
  * (events at t are counted before censorings at t) without a custom
  * comparator and without one object per observation.
  *
- * Cost: O(n log n) time, O(n) extra memory (8 bytes per observation).
+ * Cost: O(n) time (radix sort; O(n log n) below 65 536 values), O(n) extra
+ * memory (16 bytes per observation including the sort's scratch buffer).
  *
  * @param obs - observations; each `time` finite and >= 0. Not modified.
  * @param caller - name of the calling function, for error messages.
@@ -33,15 +35,15 @@ export function splitSortTimes(
   for (let i = 0; i < n; i++) {
     const o = obs[i];
     if (o === undefined) throw new RangeError(`${caller}: obs[${i}] is missing`);
-    const t = o.time;
-    assertValidTime(t, i, caller);
+    assertValidTime(o.time, i, caller);
+    const t = o.time + 0; // turns -0 into +0 for the bit-pattern sort
     // Events fill the buffer from the front, censorings from the back.
     const e = o.event;
     if (e === true) buffer[nEvents++] = t;
     else if (e === false) buffer[n - 1 - nCensor++] = t;
     else throw new RangeError(`${caller}: obs[${i}].event must be true or false, got ${String(e)}`);
   }
-  const eventTimes = buffer.subarray(0, nEvents).sort();
-  const censorTimes = buffer.subarray(nEvents, n).sort();
+  const eventTimes = sortNonNegative(buffer.subarray(0, nEvents));
+  const censorTimes = sortNonNegative(buffer.subarray(nEvents, n));
   return { eventTimes, censorTimes };
 }

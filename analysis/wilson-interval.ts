@@ -6,7 +6,7 @@ import { assertCount } from './assert-count';
  * Wilson score interval for one proportion.
  *
  * The interval for a binomial proportion obtained by inverting the score
- * test (Wilson 1927), without continuity correction: method 3 of Newcombe
+ * test (Wilson 1927, cited from memory), without continuity correction: method 3 of Newcombe
  * (1998, Stat Med 17:857–872); the same as R `prop.test(x, n, correct = FALSE)`.
  * Limits: (2np + z² ∓ z√(z² + 4np(1−p))) / (2(n + z²)). Unlike the Wald
  * interval it stays inside [0, 1] and is not degenerate at 0 or n successes.

@@ -23,7 +23,8 @@ export const APP_DATABASE = 'loadline';
 
 export type Cluster = { external: boolean; urlFor(database: string): string };
 
-function run(cmd: string, args: string[], asPostgres = isRoot): string {
+/** Runs a PostgreSQL tool (as the postgres user when invoked as root); throws with its last line of output. */
+export function run(cmd: string, args: string[], asPostgres = isRoot): string {
   const [file, argv] = asPostgres ? ['runuser', ['-u', 'postgres', '--', cmd, ...args]] : [cmd, args];
   const r = spawnSync(file, argv, { encoding: 'utf8' });
   if (r.status !== 0) {
@@ -33,7 +34,8 @@ function run(cmd: string, args: string[], asPostgres = isRoot): string {
   return r.stdout;
 }
 
-function findBinDir(): string | undefined {
+/** The newest installed PostgreSQL's bin directory (Debian's layout), if any. */
+export function findBinDir(): string | undefined {
   const base = '/usr/lib/postgresql';
   if (!existsSync(base)) return undefined;
   const versions = readdirSync(base)

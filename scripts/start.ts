@@ -4,6 +4,7 @@ import { startServer } from '../server/index';
 import { env } from '../server/env';
 import { assertPortFree, fail, prepareAppDatabase } from './lib-setup';
 import { DEMO_PASSWORD, DEMO_USERS } from './seed';
+import { startDevMail } from '../server/mail/dev-mail';
 
 async function main(): Promise<void> {
   await assertPortFree(env().HOST, env().PORT);
@@ -13,6 +14,8 @@ async function main(): Promise<void> {
     console.log('loadline: building the client…');
     await build({ logLevel: 'warn' });
   }
+  const devMail = await startDevMail();
+  if (devMail) console.log(`loadline: e-mail goes to the local fake mail server (127.0.0.1:${devMail.port}); stewards read it in the Outbox`);
   const running = await startServer(url);
   console.log(`\nLoadline is running at ${running.url}\n`);
   console.log('Demo sign-ins (password "%s"):', DEMO_PASSWORD);

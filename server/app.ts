@@ -8,11 +8,27 @@ import { authRoutes } from './routes/auth.routes';
 import { absoluteTimeout, sessionMiddleware } from './auth/session';
 import { createPassport } from './auth/passport';
 import { doubleCsrfProtection } from './auth/csrf';
+import { mailer as defaultMailer, type Mailer } from './mail/transport';
+import { invitationRoutes } from './routes/invitations.routes';
+import { userRoutes } from './routes/users.routes';
+import { adminRoutes } from './routes/admin.routes';
+import { devRoutes } from './routes/dev.routes';
+import { followUpRoutes } from './routes/follow-ups.routes';
+import { selfReportRoutes } from './routes/self-report.routes';
+import { analyticsRoutes } from './routes/analytics.routes';
+import { cohortRoutes } from './routes/cohorts.routes';
+import { dataRequestRoutes } from './routes/data-requests.routes';
+import { episodeRoutes } from './routes/episodes.routes';
+import { referenceRoutes } from './routes/reference.routes';
+import { uploadRoutes } from './routes/uploads.routes';
+import { env } from './env';
 
 export type AppDeps = Database & {
   /** Serves the client (built files or Vite middleware); absent in API-only tests. */
   client?: RequestHandler[];
   log?: (message: string) => void;
+  /** Outgoing mail; tests inject the fake SMTP server's mailer. Default: SMTP from the environment. */
+  mailer?: Mailer;
 };
 
 /** Builds the Express app: middleware, routes and the error handler. Never listens. */
@@ -39,6 +55,7 @@ export function createApp(deps: AppDeps): Express {
   );
 
   const pp = createPassport(deps.db);
+  const mailer = deps.mailer ?? defaultMailer();
   const api = express.Router();
   api.use(express.json({ limit: '1mb' }));
   api.use(healthRoutes(deps.db));
@@ -48,7 +65,19 @@ export function createApp(deps: AppDeps): Express {
   api.use(pp.initialize());
   api.use(pp.session());
   api.use(doubleCsrfProtection);
-  api.use(authRoutes(pp));
+  api.use(authRoutes({ db: deps.db, pp, mailer, log }));
+  api.use(invitationRoutes({ db: deps.db, mailer, log }));
+  api.use(userRoutes(deps.db));
+  api.use(adminRoutes(deps.db));
+  api.use(followUpRoutes(deps.db));
+  api.use(selfReportRoutes(deps.db));
+  api.use(analyticsRoutes(deps.db));
+  api.use(cohortRoutes(deps.db));
+  api.use(dataRequestRoutes({ db: deps.db, mailer, log }));
+  api.use(episodeRoutes(deps.db));
+  api.use(referenceRoutes(deps.db));
+  api.use(uploadRoutes(deps.db));
+  if (env().NODE_ENV !== 'production') api.use(devRoutes());
   api.use(() => {
     throw new NotFoundError('No such API route');
   });

@@ -22,6 +22,9 @@ const EnvSchema = z.object({
   COOKIE_SECURE: bool.optional(),
   SESSION_IDLE_MINUTES: z.coerce.number().int().min(1).default(30),
   SESSION_ABSOLUTE_HOURS: z.coerce.number().int().min(1).default(12),
+  /** Sign-in and password-reset attempts allowed per account and per address in each window. */
+  AUTH_RATE_LIMIT: z.coerce.number().int().min(1).default(10),
+  AUTH_RATE_WINDOW_MINUTES: z.coerce.number().int().min(1).default(15),
   /** Public base URL used in e-mailed links. */
   APP_URL: z.string().url().optional(),
   SMTP_HOST: z.string().optional(),

@@ -5,6 +5,8 @@ import { openDatabase } from './db/client';
 import { migrateDatabase } from './db/migrate';
 import { env } from './env';
 import { builtClient, viteClient } from './http/client';
+import { scheduleReminderDigests } from './jobs/reminders';
+import { mailer } from './mail/transport';
 
 export type Running = { server: Server; url: string; close(): Promise<void> };
 
@@ -29,10 +31,13 @@ export async function startServer(databaseUrl: string): Promise<Running> {
       ),
     );
   });
+  // The daily reminder digests run inside the server process (createApp schedules nothing, so tests never do).
+  const reminders = scheduleReminderDigests(database.db, mailer(), (m) => console.error(m));
   return {
     server,
     url: `http://${HOST}:${PORT}`,
     close: async () => {
+      await reminders.stop();
       await new Promise((r) => server.close(r));
       await database.pool.end();
     },

@@ -6,7 +6,8 @@ import type { RecoveredShare } from './types';
  *
  * Reads 1 − S(t) off a Kaplan-Meier table, where S is the share not yet
  * recovered and the table is a right-continuous step function (S(t) is the
- * value of the last step at or before t, 1 before the first step). The
+ * value of the last step at or before t; before the first step the share is
+ * 0 with null bounds). The
  * confidence bounds flip: lower = 1 − upper(S), upper = 1 − lower(S); a
  * bound is null where the KM bound is undefined. Beyond the last observed
  * time the estimate is null unless the curve has already reached 0 (then
@@ -19,10 +20,12 @@ import type { RecoveredShare } from './types';
  * @throws RangeError when `weeks` is negative or not finite.
  * @returns the share recovered with its bounds.
  * @example
- * recoveredShareAt(kaplanMeier(obs), 12); // { weeks: 12, estimate: 0.42, lower: 0.31, upper: 0.54 }
+ * // 6-MP arm of Freireich et al. 1963 read as 'recovery' times, log-log CI:
+ * recoveredShareAt(kaplanMeier(sixMp), 12); // { weeks: 12, estimate: 0.247059, lower: 0.110638, upper: 0.496800 }
  */
 export function recoveredShareAt(km: KaplanMeierResult, weeks: number): RecoveredShare {
-  if (!Number.isFinite(weeks) || weeks < 0) throw new RangeError(`recoveredShareAt: weeks must be finite and >= 0, got ${weeks}`);
+  if (!Number.isFinite(weeks) || weeks < 0)
+    throw new RangeError(`recoveredShareAt: weeks must be finite and >= 0, got ${weeks}`);
   const steps = km.steps;
   let lo = 0;
   let hi = steps.length; // first index with time > weeks

@@ -9,9 +9,9 @@ export const DEFAULT_FOLLOW_UP_WINDOW: FollowUpWindow = Object.freeze({ target: 
  *
  * Picks the assessment nearest to the target week (default 12) among those
  * inside the window [from, to] (default 10–16 weeks, both ends included);
- * on a tie in distance the earlier one wins. The three-month time point is
- * the usual primary endpoint in heel-pain trials; the window itself is a
- * product choice (common practice, no published source). When nothing falls
+ * on a tie in distance the earlier one wins. Three months as the primary
+ * time point and the width of the window are common practice, with no
+ * published source behind the exact numbers. When nothing falls
  * in the window the result is `null`: the caller must report the episode as
  * missing, never as a non-responder.
  *

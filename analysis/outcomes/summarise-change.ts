@@ -10,7 +10,7 @@ import { assertConfLevel } from '../assert-conf-level';
  * For paired baseline / follow-up scores: n; the mean sign-corrected change
  * with its t-based confidence interval, mean ± t(1−α/2, n−1)·SD/√n (the
  * paired t interval, Student 1908); the median and quartiles by R's default
- * type-7 definition (linear interpolation at (n−1)p, Hyndman & Fan 1996),
+ * type-7 definition (linear interpolation at (n−1)p, Hyndman & Fan 1996, cited from memory),
  * which is what simple-statistics 7.12 `quantileSorted` computes (checked in
  * the tests); the standardised response mean SRM = mean change / SD of change
  * (Liang, Fossel & Larson 1990; equals Cohen's d_z, Lakens 2013); and the

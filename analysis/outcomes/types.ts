@@ -146,7 +146,7 @@ export type AddOnEpisode = {
 };
 
 /** Counts of one arm. */
-export type ArmCount = { n: number; responders: number };
+export type ArmCount = { n: number; responders: number; nonResponders: number };
 
 /** Association of one add-on with responding. */
 export type AddOnComparison = {

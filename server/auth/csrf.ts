@@ -14,4 +14,7 @@ export const { generateCsrfToken, doubleCsrfProtection } = doubleCsrf({
   cookieOptions: { sameSite: 'lax', secure: env().COOKIE_SECURE ?? env().NODE_ENV === 'production', httpOnly: true, path: '/' },
   getCsrfTokenFromRequest: (req) => req.headers['x-csrf-token'],
   errorConfig: { statusCode: 403, message: 'Missing or invalid CSRF token; reload the page and try again' },
+  // The public self-report submission has no session: its single-use token in the URL is the capability.
+  // Exactly POST /api/self-report/:token is exempt, nothing else.
+  skipCsrfProtection: (req) => req.method === 'POST' && /^\/api\/self-report\/[A-Za-z0-9_-]+$/.test(req.originalUrl.split('?')[0] ?? ''),
 });

@@ -2,7 +2,9 @@ import session from 'express-session';
 import connectPgSimple from 'connect-pg-simple';
 import type { RequestHandler } from 'express';
 import type pg from 'pg';
+import { sql } from 'drizzle-orm';
 import { env } from '../env';
+import type { Tx } from '../services/audit';
 
 declare module 'express-session' {
   interface SessionData {
@@ -35,15 +37,23 @@ export function sessionMiddleware(pool: pg.Pool): RequestHandler {
   });
 }
 
-/** Ends sessions older than the absolute time-out, whatever their activity. */
-export function absoluteTimeout(): RequestHandler {
+/**
+ * Ends sessions older than the absolute time-out, whatever their activity: the stored session is
+ * destroyed and replaced by an empty one, so the request continues signed out (401 where it matters).
+ */
+export function absoluteTimeout(now: () => number = Date.now): RequestHandler {
   const limit = env().SESSION_ABSOLUTE_HOURS * 3_600_000;
   return (req, _res, next) => {
     const at = req.session?.signedInAt;
-    if (at && Date.now() - at > limit) {
-      req.session.destroy(() => next());
+    if (at && now() - at > limit) {
+      req.session.regenerate((err) => next(err));
       return;
     }
     next();
   };
+}
+
+/** Deletes every stored session of a user (password reset, deactivation): they are signed out everywhere. */
+export async function endAllSessions(tx: Tx, userId: number): Promise<void> {
+  await tx.execute(sql`delete from "session" where ("sess"->'passport'->>'user') = ${String(userId)}`);
 }

@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import {
-  ACTIVITY_PROFILES, DISCHARGE_REASONS, EPISODE_STATUSES, REPORTERS, SEXES, SIDES, TIMEPOINTS,
+  ACTIVITY_PROFILES, BMI_BANDS, DISCHARGE_REASONS, EPISODE_STATUSES, INTERVENTION_KINDS, REPORTERS, SEXES, SIDES, TIMEPOINTS,
 } from '../constants';
 
 /** A calendar date as 'YYYY-MM-DD' that exists (no 2026-02-30). Dates are dates: no time zone. */
@@ -99,8 +99,87 @@ export const EpisodeListQuerySchema = z.object({
   order: z.enum(['asc', 'desc']).default('desc'),
   status: z.enum(EPISODE_STATUSES).optional(),
   q: z.string().trim().max(40).optional(),
+  /** Steward only: one clinic's episodes (lead and clinician always see their own clinic). */
+  clinicId: z.coerce.number().int().min(1).optional(),
 });
 export type EpisodeListQuery = z.infer<typeof EpisodeListQuerySchema>;
 
 /** Any list endpoint answers `{ items, total }`. */
 export const listOf = <T extends z.ZodType>(item: T) => z.object({ items: z.array(item), total: z.number().int() });
+
+// ---------- answers of the episode API ----------
+
+/** A stored assessment with its scores (instrument code → total) and its day since the episode's start. */
+export const AssessmentSchema = z.object({
+  id: z.number().int(),
+  assessedOn: z.string(),
+  timepoint: z.enum(TIMEPOINTS),
+  reporter: z.enum(REPORTERS),
+  daysSinceStart: z.number().int(),
+  avgDailySteps: z.number().int().nullable(),
+  adverseEvent: z.string().nullable(),
+  scores: z.record(z.string(), z.number()),
+});
+export type Assessment = z.infer<typeof AssessmentSchema>;
+
+/** An intervention the episode received, with its code's label and kind. */
+export const EpisodeInterventionSchema = z.object({
+  code: z.string(),
+  label: z.string(),
+  kind: z.enum(INTERVENTION_KINDS),
+  graded: z.boolean(),
+  startWeek: z.number().int(),
+  maxLevel: z.number().int().nullable(),
+});
+export type EpisodeIntervention = z.infer<typeof EpisodeInterventionSchema>;
+
+/** `PUT /api/episodes/:id/interventions`: the full list (replaces what was recorded). */
+export const InterventionsPutSchema = z.object({ interventions: z.array(InterventionInputSchema).max(40) }).strict();
+export type InterventionsPut = z.infer<typeof InterventionsPutSchema>;
+
+/** One row of `GET /api/episodes`. Pain change is latest minus baseline (negative = less pain). */
+export const EpisodeListItemSchema = z.object({
+  id: z.number().int(),
+  clinicId: z.number().int(),
+  reference: z.string(),
+  startDate: z.string(),
+  status: z.enum(EPISODE_STATUSES),
+  weeksInCare: z.number().int(),
+  activityProfile: z.enum(ACTIVITY_PROFILES),
+  lastAssessedOn: z.string().nullable(),
+  latestFirstStepPain: z.number().nullable(),
+  firstStepPainChange: z.number().nullable(),
+  version: z.number().int(),
+});
+export type EpisodeListItem = z.infer<typeof EpisodeListItemSchema>;
+export const EpisodeListSchema = listOf(EpisodeListItemSchema);
+
+/** `GET /api/episodes/:id` (also the answer of create and patch): BMI and its WHO band are derived, never stored. */
+export const EpisodeDetailSchema = z.object({
+  id: z.number().int(),
+  clinicId: z.number().int(),
+  pseudonym: z.string(),
+  reference: z.string(),
+  conditionCode: z.string(),
+  side: z.enum(SIDES),
+  startDate: z.string(),
+  symptomWeeks: z.number().int(),
+  ageYears: z.number().int(),
+  sex: z.enum(SEXES),
+  heightCm: z.number(),
+  weightKg: z.number(),
+  activityProfile: z.enum(ACTIVITY_PROFILES),
+  standingWork: z.boolean(),
+  researchConsent: z.boolean(),
+  status: z.enum(EPISODE_STATUSES),
+  dischargeDate: z.string().nullable(),
+  dischargeReason: z.enum(DISCHARGE_REASONS).nullable(),
+  version: z.number().int(),
+  createdAt: z.string(),
+  updatedAt: z.string(),
+  bmi: z.number(),
+  bmiBand: z.enum(BMI_BANDS),
+  assessments: z.array(AssessmentSchema),
+  interventions: z.array(EpisodeInterventionSchema),
+});
+export type EpisodeDetail = z.infer<typeof EpisodeDetailSchema>;

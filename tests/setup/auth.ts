@@ -2,7 +2,7 @@ import request from 'supertest';
 import type { Express } from 'express';
 import { randomBytes } from 'node:crypto';
 import type { Db } from '../../server/db/client';
-import { users } from '../../server/db/schema';
+import { clinics, users } from '../../server/db/schema';
 import { hashPassword } from '../../server/auth/passwords';
 import type { Role } from '../../shared/roles';
 
@@ -18,6 +18,13 @@ export async function createUser(db: Db, role: Role, clinicId: number | null = n
     .values({ email: address, name: `Test ${role}`, role, clinicId, passwordHash: await cachedHash })
     .returning({ id: users.id, email: users.email });
   return { id: row!.id, email: row!.email, role, clinicId };
+}
+
+/** Inserts a clinic with a unique code (integration tests share one database per run). */
+export async function createClinic(db: Db, displayName = 'Test clinic') {
+  const code = `T${randomBytes(3).toString('hex').toUpperCase()}`;
+  const [row] = await db.insert(clinics).values({ code, displayName, region: 'Test region' }).returning();
+  return { id: row!.id, code, displayName };
 }
 
 /** A cookie-keeping client that sends the CSRF header on every state-changing request. */

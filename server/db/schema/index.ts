@@ -4,3 +4,6 @@ export * from './users';
 export * from './reference';
 export * from './episodes';
 export * from './registry';
+export * from './follow-ups';
+export * from './data-version';
+export * from './research';

@@ -1,4 +1,5 @@
 import { boolean, index, integer, json, pgTable, serial, text, timestamp, varchar } from 'drizzle-orm/pg-core';
+import { AUTH_TOKEN_PURPOSES } from '../../../shared/account';
 import { ROLES } from '../../../shared/roles';
 import { clinics } from './clinics';
 
@@ -25,4 +26,24 @@ export const sessions = pgTable(
     expire: timestamp('expire', { precision: 6 }).notNull(),
   },
   (t) => [index('session_expire_idx').on(t.expire)],
+);
+
+/**
+ * A single-use link sent by e-mail (invitation: 72 h, password reset: 1 h). Only the SHA-256 of the
+ * random token is stored, so a copy of the database cannot be used to take over an account.
+ */
+export const authTokens = pgTable(
+  'auth_token',
+  {
+    id: serial('id').primaryKey(),
+    userId: integer('user_id')
+      .notNull()
+      .references(() => users.id, { onDelete: 'cascade' }),
+    purpose: text('purpose', { enum: AUTH_TOKEN_PURPOSES }).notNull(),
+    tokenHash: text('token_hash').notNull().unique(),
+    expiresAt: timestamp('expires_at', { withTimezone: true }).notNull(),
+    usedAt: timestamp('used_at', { withTimezone: true }),
+    createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [index('auth_token_user_idx').on(t.userId, t.purpose)],
 );

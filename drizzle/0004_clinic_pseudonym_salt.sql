@@ -1,0 +1,2 @@
+ALTER TABLE "clinic" ADD COLUMN "pseudonym_salt" text DEFAULT replace(gen_random_uuid()::text, '-', '') NOT NULL;--> statement-breakpoint
+ALTER TABLE "clinic" ADD CONSTRAINT "clinic_pseudonym_salt_hex" CHECK ("clinic"."pseudonym_salt" ~ '^[0-9a-f]{32}$');

@@ -1,0 +1,87 @@
+import { randomBytes, randomUUID } from 'node:crypto';
+import type { EpisodeField, ExportColumn, InstrumentPart, StartGranularity } from '../../../shared/export-columns';
+import type { EpisodeFacts, InstrumentFacts } from '../cohorts/derive';
+import { cell, tidy, type Cell } from './csv-cell';
+import { startPeriod, type Qi } from './generalise';
+
+/** The ungeneralised quasi-identifiers of one episode (bands from the outcomes engine, the period from the date). */
+export function qiOf(f: EpisodeFacts, granularity: StartGranularity): Qi {
+  return {
+    ageBand: f.ageBand,
+    sex: f.sex,
+    bmiBand: f.bmiBand,
+    activity: f.activityProfile,
+    period: startPeriod(f.startDate, granularity),
+    region: f.region,
+  };
+}
+
+/** Per-export random site codes: the same clinic gets a different code in every export. */
+export function clinicCoder(): (clinicId: number) => string {
+  const codes = new Map<number, string>();
+  const used = new Set<string>();
+  return (clinicId) => {
+    const known = codes.get(clinicId);
+    if (known !== undefined) return known;
+    let code: string;
+    do code = `S${randomBytes(3).toString('hex')}`;
+    while (used.has(code));
+    codes.set(clinicId, code);
+    used.add(code);
+    return code;
+  };
+}
+
+type Value = string | number | boolean | null;
+type Getter = (f: EpisodeFacts, q: Qi) => Value;
+
+function fieldGetter(field: EpisodeField, clinicCode: (id: number) => string): Getter {
+  const getters: Record<EpisodeField, Getter> = {
+    // A fresh random id per row and export: never derived from the pseudonym, so exports cannot be linked.
+    study_id: () => randomUUID(),
+    clinic_code: (f) => clinicCode(f.clinicId),
+    clinic_region: (_f, q) => q.region,
+    start_period: (_f, q) => q.period,
+    age_band: (_f, q) => q.ageBand,
+    sex: (_f, q) => q.sex,
+    bmi_band: (_f, q) => q.bmiBand,
+    activity_profile: (_f, q) => q.activity,
+    // Raw BMI would undo a generalised band, so it goes with it.
+    bmi: (f, q) => (q.bmiBand === '*' ? null : tidy(f.bmi, 1)),
+    condition_code: (f) => f.conditionCode,
+    side: (f) => f.side,
+    standing_work: (f) => f.standingWork,
+    symptom_duration_band: (f) => f.durationBand,
+    recovery_event: (f) => (f.recovery ? f.recovery.event : null),
+    recovery_weeks: (f) => (f.recovery ? tidy(f.recovery.time, 2) : null),
+    episode_status: (f) => f.status,
+    discharge_reason: (f) => f.dischargeReason,
+    discharge_day: (f) => f.dischargeDay,
+    assessment_count: (f) => f.assessmentCount,
+  };
+  return getters[field];
+}
+
+const PART: Record<InstrumentPart, (i: InstrumentFacts) => Value> = {
+  baseline: (i) => i.baseline,
+  followup: (i) => i.followUp,
+  followup_day: (i) => i.followUpDay,
+  change: (i) => (i.change === null ? null : tidy(i.change)),
+  responder: (i) => i.responder,
+};
+
+/** Compiles the columns into one function from an episode (and its exported quasi-identifiers) to a CSV record. */
+export function recordBuilder(columns: readonly ExportColumn[], clinicCode: (id: number) => string) {
+  const getters: Getter[] = columns.map((c): Getter => {
+    const s = c.source;
+    if (s.kind === 'field') return fieldGetter(s.field, clinicCode);
+    if (s.kind === 'intervention') return (f) => f.interventionCodes.has(s.code);
+    const part = PART[s.part];
+    return (f) => {
+      const i = f.byInstrument.get(s.code);
+      return i ? part(i) : null;
+    };
+  });
+  const types = columns.map((c) => c.type);
+  return (f: EpisodeFacts, q: Qi): Cell[] => getters.map((g, i) => cell(types[i]!, g(f, q)));
+}

@@ -1,0 +1,85 @@
+import type { InterventionInput } from '../../shared/schemas/episode';
+import type { UploadColumn } from '../../shared/upload-columns';
+
+/** A converted cell: its value (undefined when empty) or why it could not be read. */
+export type Cell = { ok: true; value: unknown } | { ok: false; message: string };
+
+const NUMBER = /^[+-]?(\d+(\.\d+)?|\.\d+)$/;
+const INTEGER = /^[+-]?\d+$/;
+const TRUE = new Set(['yes', 'y', 'true', '1']);
+const FALSE = new Set(['no', 'n', 'false', '0']);
+const INTERVENTION = /^([a-z0-9][a-z0-9-]*)(?:@(\d{1,3}))?(?::(\d))?$/;
+
+/**
+ * Spreadsheet programs run a cell that starts with = + - @ (or a tab or carriage return) as a formula
+ * (OWASP "CSV injection"). Text never legitimately starts so here; numbers may carry a sign.
+ */
+export function looksLikeFormula(raw: string): boolean {
+  return /^[=+\-@\t\r]/.test(raw);
+}
+
+const FORMULA = 'starts with = + - or @ like a spreadsheet formula; remove that character (the registry stores no formulas)';
+
+function interventions(raw: string): Cell {
+  const out: InterventionInput[] = [];
+  for (const part of raw.split(';').map((p) => p.trim()).filter((p) => p !== '')) {
+    if (looksLikeFormula(part)) return { ok: false, message: `“${part}” ${FORMULA}` };
+    const m = INTERVENTION.exec(part.toLowerCase());
+    if (!m) return { ok: false, message: `“${part}” is not an intervention; write code, code:level or code@week:level` };
+    const level = m[3] === undefined ? null : Number(m[3]);
+    if (level !== null && (level < 1 || level > 3)) return { ok: false, message: `“${part}”: a level is 1, 2 or 3` };
+    out.push({ code: m[1]!, startWeek: m[2] === undefined ? 0 : Number(m[2]), maxLevel: level });
+  }
+  return { ok: true, value: out };
+}
+
+// Dates repeat across rows (a few hundred distinct days): keep one copy of each.
+const INTERNED = new Map<string, string>();
+function intern(s: string): string {
+  const known = INTERNED.get(s);
+  if (known !== undefined) return known;
+  if (INTERNED.size > 50_000) INTERNED.clear();
+  INTERNED.set(s, s);
+  return s;
+}
+
+/** Reads one cell of `col`. Cells are trimmed; an empty cell is `undefined` (required cells are checked by the caller). */
+export function readCell(col: UploadColumn, raw: string): Cell {
+  const s = raw.trim();
+  if (s === '') return { ok: true, value: undefined };
+  switch (col.type) {
+    case 'integer':
+    case 'number': {
+      if (!(col.type === 'integer' ? INTEGER : NUMBER).test(s)) {
+        if (/^[=@]/.test(s) || (looksLikeFormula(s) && !NUMBER.test(s))) return { ok: false, message: `The cell ${FORMULA}` };
+        return {
+          ok: false,
+          message: col.type === 'integer' ? `Use a whole number (not “${s.slice(0, 20)}”)` : `Use a number like 74.5, with a point for decimals and no units (not “${s.slice(0, 20)}”)`,
+        };
+      }
+      return { ok: true, value: Number(s) };
+    }
+    case 'boolean': {
+      if (looksLikeFormula(s)) return { ok: false, message: `The cell ${FORMULA}` };
+      const v = s.toLowerCase();
+      if (TRUE.has(v)) return { ok: true, value: true };
+      if (FALSE.has(v)) return { ok: true, value: false };
+      return { ok: false, message: `Use yes or no (not “${s.slice(0, 20)}”)` };
+    }
+    case 'enum': {
+      if (looksLikeFormula(s)) return { ok: false, message: `The cell ${FORMULA}` };
+      // The constant itself, not the cell's copy: 100,000 rows then share one string per value.
+      const v = col.values!.find((x) => x === s.toLowerCase());
+      if (v === undefined) return { ok: false, message: `Use one of: ${col.values!.join(', ')} (not “${s.slice(0, 20)}”)` };
+      return { ok: true, value: v };
+    }
+    case 'interventions':
+      return interventions(s);
+    case 'date':
+      if (looksLikeFormula(s)) return { ok: false, message: `The cell ${FORMULA}` };
+      return { ok: true, value: intern(s) };
+    default:
+      if (looksLikeFormula(s)) return { ok: false, message: `The cell ${FORMULA}` };
+      return { ok: true, value: s };
+  }
+}

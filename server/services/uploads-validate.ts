@@ -1,0 +1,176 @@
+import { z } from 'zod';
+import { DISCHARGE_REASONS, EPISODE_STATUSES, type Timepoint } from '../../shared/constants';
+import { AssessmentInputSchema, EpisodeCreateSchema, IsoDateSchema, type InterventionInput } from '../../shared/schemas/episode';
+import { UPLOAD_COLUMNS } from '../../shared/upload-columns';
+import type { IssueLog } from './uploads-issues';
+import type { Header } from './uploads-parse';
+import { readCell } from './uploads-cells';
+import { scoreProblems } from './reference-checks';
+import type { ReferenceData } from './reference.service';
+
+/** The episode columns of a row, checked with the same shared schema as the episode form. */
+export const UploadEpisodeSchema = EpisodeCreateSchema.omit({ baseline: true, interventions: true }).extend({
+  status: z.enum(EPISODE_STATUSES).default('open'),
+  dischargeDate: IsoDateSchema.nullable().default(null),
+  dischargeReason: z.enum(DISCHARGE_REASONS).nullable().default(null),
+});
+export type UploadEpisodeFields = z.infer<typeof UploadEpisodeSchema>;
+
+/** One assessment row. `undefined` = the column is not in the file (keep what is stored); `null` = an empty cell. */
+export type UploadAssessment = {
+  row: number;
+  assessedOn: string;
+  timepoint: Timepoint;
+  reporter: 'clinician' | 'patient' | undefined;
+  avgDailySteps: number | null | undefined;
+  adverseEvent: string | null | undefined;
+  scores: Record<string, number | null>;
+};
+
+/** All rows of one episode reference in the file; `fields` is null when the episode columns are not valid. */
+export type UploadEpisode = {
+  reference: string;
+  firstRow: number;
+  /** The first row's episode cells as written (a later row that differs is compared as read: "Yes" = "yes"). */
+  rawKey: string;
+  fields: UploadEpisodeFields | null;
+  interventions: InterventionInput[] | undefined;
+  rows: UploadAssessment[];
+};
+
+const COLUMN_OF_FIELD = new Map(UPLOAD_COLUMNS.filter((c) => c.level !== 'score').map((c) => [c.field, c.name]));
+const COLUMN_OF_SCORE = new Map(UPLOAD_COLUMNS.filter((c) => c.level === 'score').map((c) => [c.field, c.name]));
+
+/** Zod's default range messages, said plainly; the shared schemas' own messages are kept as they are. */
+function plain(issue: z.core.$ZodIssue): string {
+  const i = issue as { code: string; minimum?: unknown; maximum?: unknown; message: string };
+  if (i.code === 'too_small' && /^Too small/.test(i.message)) return `Must be at least ${String(i.minimum)}`;
+  if (i.code === 'too_big' && /^Too big/.test(i.message)) return `Must be at most ${String(i.maximum)}`;
+  return i.message;
+}
+
+/** Reads rows one at a time into episodes; problems go to the log with their row and column. */
+export class RowCollector {
+  readonly episodes = new Map<string, UploadEpisode>();
+  private refIndex = -1;
+
+  constructor(
+    private readonly log: IssueLog,
+    private readonly ref: ReferenceData,
+  ) {}
+
+  add(cells: string[], row: number, header: Header): void {
+    const rawKey = this.rawEpisodeKey(cells, header);
+    if (this.refIndex < 0) this.refIndex = header.columns.findIndex((c) => c?.name === 'episode_reference');
+    const reference = cells[this.refIndex]!.trim();
+    const known = this.episodes.get(reference);
+    // Fast path: a row repeating its episode's first row exactly needs no second reading of the episode columns.
+    const repeat = known !== undefined && known.rawKey === rawKey;
+    const epi: Record<string, unknown> = {};
+    const asm: Record<string, unknown> = {};
+    const scoreCells: Record<string, number | null> = {};
+    const keyParts: string[] = [];
+    let bad = false;
+    const columns = header.columns;
+    for (let i = 0; i < columns.length; i++) {
+      const col = columns[i]!;
+      if (repeat && col.level === 'episode') continue;
+      const cell = readCell(col, cells[i]!);
+      if (!cell.ok) {
+        this.log.add(row, col.name, cell.message);
+        bad = true;
+        continue;
+      }
+      if (cell.value === undefined && col.required) {
+        this.log.add(row, col.name, `Enter a value for ${col.name} (a required column)`);
+        bad = true;
+        continue;
+      }
+      if (col.level === 'episode') {
+        epi[col.field] = cell.value;
+        keyParts[i] = cell.value === undefined ? '' : typeof cell.value === 'object' ? JSON.stringify(cell.value) : String(cell.value);
+      } else if (col.level === 'assessment') asm[col.field] = cell.value;
+      else scoreCells[col.field] = (cell.value as number | undefined) ?? null;
+    }
+    if (bad || !reference) return;
+    const group = repeat ? (known.fields ? known : null) : this.episodeOf(reference, rawKey, keyParts.join('\u001f'), epi, row, header);
+    if (!group) {
+      this.log.rejectedRows.add(row); // its episode's columns are not valid (reported on the episode's first row)
+      return;
+    }
+    const scores: Record<string, number> = {};
+    for (const code in scoreCells) if (scoreCells[code] !== null) scores[code] = scoreCells[code]!;
+    const parsed = AssessmentInputSchema.safeParse({ ...asm, scores, avgDailySteps: asm.avgDailySteps ?? null, adverseEvent: asm.adverseEvent ?? null });
+    if (!parsed.success) {
+      for (const issue of parsed.error.issues) {
+        const [head, code] = issue.path as string[];
+        if (head === 'scores' && code === undefined) this.log.add(row, null, 'Enter at least one score (a score_… column)');
+        else this.log.add(row, head === 'scores' ? (COLUMN_OF_SCORE.get(code!) ?? null) : (COLUMN_OF_FIELD.get(head!) ?? null), plain(issue));
+      }
+      return;
+    }
+    const problems = scoreProblems(scores, this.ref);
+    for (const p of problems) this.log.add(row, COLUMN_OF_SCORE.get(p.field) ?? null, p.message);
+    if (problems.length > 0) return;
+    group.rows.push({
+      row,
+      assessedOn: parsed.data.assessedOn,
+      timepoint: parsed.data.timepoint,
+      reporter: header.has.has('reporter') ? parsed.data.reporter : undefined,
+      avgDailySteps: header.has.has('avg_daily_steps') ? (parsed.data.avgDailySteps ?? null) : undefined,
+      adverseEvent: header.has.has('adverse_event') ? parsed.data.adverseEvent || null : undefined,
+      scores: scoreCells,
+    });
+  }
+
+  private rawEpisodeKey(cells: string[], header: Header): string {
+    let key = '';
+    for (let i = 0; i < header.columns.length; i++) if (header.columns[i]!.level === 'episode') key += `${cells[i]}\u001f`;
+    return key;
+  }
+
+  /** The episode a row belongs to; every row must repeat the first row's episode columns exactly. */
+  private episodeOf(reference: string, rawKey: string, key: string, epi: Record<string, unknown>, row: number, header: Header): UploadEpisode | null {
+    const known = this.episodes.get(reference);
+    if (known) {
+      const first = this.convertedKey(known.rawKey, header);
+      if (first !== key) this.reportConflict(known, first, key, row, header);
+      return first === key && known.fields ? known : null;
+    }
+    const group: UploadEpisode = { reference, firstRow: row, rawKey, fields: null, interventions: undefined, rows: [] };
+    this.episodes.set(reference, group);
+    const { interventions, ...fields } = epi;
+    const parsed = UploadEpisodeSchema.safeParse(fields);
+    if (!parsed.success) {
+      for (const issue of parsed.error.issues) this.log.add(row, COLUMN_OF_FIELD.get(String(issue.path[0])) ?? null, plain(issue));
+      return null;
+    }
+    group.fields = parsed.data;
+    group.interventions = interventions as InterventionInput[] | undefined;
+    return group;
+  }
+
+  /** The episode columns of a stored raw key, read as cells are read (only when a later row differs). */
+  private convertedKey(rawKey: string, header: Header): string {
+    const raw = rawKey.split('\u001f');
+    const parts: string[] = [];
+    let k = 0;
+    header.columns.forEach((col, i) => {
+      if (col.level !== 'episode') return;
+      const cell = readCell(col, raw[k++] ?? '');
+      const v = cell.ok ? cell.value : raw[k - 1];
+      parts[i] = v === undefined ? '' : typeof v === 'object' ? JSON.stringify(v) : String(v);
+    });
+    return parts.join('\u001f');
+  }
+
+  private reportConflict(known: UploadEpisode, firstKey: string, key: string, row: number, header: Header): void {
+    const a = firstKey.split('\u001f');
+    const b = key.split('\u001f');
+    header.columns.forEach((col, i) => {
+      if (col.level === 'episode' && a[i] !== b[i]) {
+        this.log.add(row, col.name, `Episode “${known.reference}” has ${col.name} “${a[i]}” on row ${known.firstRow} but “${b[i]}” here; the episode columns must be the same on every row of an episode`);
+      }
+    });
+  }
+}
