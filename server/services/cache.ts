@@ -3,13 +3,17 @@ import type { Db } from '../db/client';
 
 /**
  * The registry's data version and an in-process cache of computed analytics keyed by it.
- * Triggers (migration 0008) bump `registry_data_version` on every write to the tables the numbers come from,
- * so a key that includes the version can never return numbers computed from older data.
+ * Triggers (migrations 0008 and 0010) append a row to `registry_data_change` on every write statement to the
+ * tables the numbers come from. The version is the count of committed rows: any committed write raises it
+ * (a max(id) would not, when an older transaction commits after a newer one), so a key that includes the
+ * version can never return numbers computed from older data.
  */
 
-/** The current data version: one indexed single-row read, cheap enough for every request. */
+/** The current data version: a count over a narrow append-only table (one row per write statement). */
 export async function readDataVersion(db: Db): Promise<number> {
-  const { rows } = await db.execute<{ version: number }>(sql`select version from registry_data_version where id = 1`);
+  const { rows } = await db.execute<{ version: number }>(
+    sql`select count(*)::bigint as version from registry_data_change`,
+  );
   return Number(rows[0]?.version ?? 0);
 }
 
@@ -46,7 +50,8 @@ export class LruCache<V> {
   }
 }
 
-const MAX_ENTRIES = 500;
+// A clinic-results answer can hold tens of thousands of change scores at registry scale; 200 keeps memory bounded.
+const MAX_ENTRIES = 200;
 // One cache per database handle, so two apps in one process (tests, benchmarks) never share entries.
 const caches = new WeakMap<Db, { entries: LruCache<Promise<unknown>>; hits: number; misses: number }>();
 

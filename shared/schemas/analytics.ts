@@ -206,7 +206,8 @@ export type AddOnsResponse = z.infer<typeof AddOnsResponseSchema>;
 
 const FunnelMeasureSchema = z.object({
   n: z.number().int(),
-  count: z.number().int(),
+  /** null (with share and flags) when it, or its complement, is a small cell a researcher may not see. */
+  count: z.number().int().nullable(),
   share: maybe,
   flag95: TargetPositionSchema.nullable(),
   flag998: TargetPositionSchema.nullable(),

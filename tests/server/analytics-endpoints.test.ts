@@ -13,11 +13,13 @@ import {
   type Obs,
 } from '../../analysis/index';
 import {
+  OutcomesResponseSchema,
   AddOnsResponseSchema,
   ClinicsResponseSchema,
   RecoveryResponseSchema,
   TrajectoryResponseSchema,
 } from '../../shared/schemas/analytics';
+import { severityBand } from '../../shared/schemas/analytics-subgroups';
 import { assessments, clinics, episodes, instruments, scores } from '../../server/db/schema';
 import { testApp } from '../setup/test-app';
 import { signedInClient } from '../setup/auth';
@@ -87,6 +89,25 @@ describe('GET /api/analytics/recovery', () => {
     expect(body.groups.find((g) => g.level === 'runner')?.n).toBe(runners);
     expect(JSON.stringify(body)).not.toContain('Analytics test clinic');
     await get(fx.users.researcher, `/api/analytics/recovery?clinic=${fx.clinicIds[0]}`, 403);
+  });
+
+  it('groups by baseline severity of the chosen instrument, and narrows another screen to one severity', async () => {
+    const body = RecoveryResponseSchema.parse(
+      await get(fx.users.lead, '/api/analytics/recovery?groupBy=severity&instrument=faam-adl'),
+    );
+    const inst = reg.instruments.find((i) => i.code === 'faam-adl')!;
+    const own = reg.episodes.filter((e) => e.clinicId === fx.clinicIds[0] && recoveryOf(reg, e) !== null);
+    const level = (e: (typeof own)[number]) => {
+      const b = baselineOf(e, inst.id);
+      return b === null ? null : severityBand(b, inst);
+    };
+    for (const g of body.groups) expect(g.n, g.level).toBe(own.filter((e) => level(e) === g.level).length);
+    expect(body.nMissingLevel).toBe(own.filter((e) => level(e) === null).length);
+    const mild = OutcomesResponseSchema.parse(
+      await get(fx.users.lead, '/api/analytics/outcomes?instrument=faam-adl&subgroup=severity&level=mild'),
+    );
+    const all = reg.episodes.filter((e) => e.clinicId === fx.clinicIds[0]);
+    expect(mild.tiles.episodes).toBe(all.filter((e) => level(e) === 'mild').length);
   });
 
   it('marks subgroups under the minimum as too few to estimate', async () => {

@@ -1,16 +1,13 @@
-import { sql } from 'drizzle-orm';
-import { bigint, check, integer, pgTable } from 'drizzle-orm/pg-core';
+import { bigserial, pgTable, timestamp } from 'drizzle-orm/pg-core';
 
 /**
- * One row counting writes to the registry's outcome data. Statement-level triggers (custom migration
- * `data_version_triggers`) bump it on every insert, update, delete or truncate of the tables the analytics
- * read, so a cached result keyed by this number is never served after the data changed.
+ * An append-only log of write statements to the registry's outcome data. Statement-level triggers
+ * (custom migrations `data_version_triggers` and `data_change_log`) insert one row per insert, update,
+ * delete or truncate of the tables the analytics read. The data version is the number of committed rows:
+ * it grows whenever any such write commits, and appending takes no shared lock, so a long upload
+ * transaction does not make other clinics' writes wait. Rows are never deleted (that would shrink the count).
  */
-export const registryDataVersion = pgTable(
-  'registry_data_version',
-  {
-    id: integer('id').primaryKey().default(1),
-    version: bigint('version', { mode: 'number' }).notNull().default(0),
-  },
-  (t) => [check('registry_data_version_single_row', sql`${t.id} = 1`)],
-);
+export const registryDataChanges = pgTable('registry_data_change', {
+  id: bigserial('id', { mode: 'number' }).primaryKey(),
+  at: timestamp('at', { withTimezone: true }).notNull().defaultNow(),
+});

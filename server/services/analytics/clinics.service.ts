@@ -146,9 +146,18 @@ export function presentClinics(result: ClinicComparisonResult, scope: Scope): Cl
   const anonymous = new Map(
     others.map((c, i) => [c.clinicId, `Peer ${String((order[i] ?? 0) + 1).padStart(width, '0')}`]),
   );
+  // Researchers: a count (or its complement) from 1 to k − 1 would let a small cell be worked out.
+  const k = scope.kind === 'registry' && scope.researcher ? (result.meta.minCellShown ?? 0) : 0;
+  const small = (x: number) => x > 0 && x < k;
+  const guard = (m: Measure): Measure =>
+    m.count !== null && (small(m.count) || small(m.n - m.count))
+      ? { ...m, count: null, share: null, flag95: null, flag998: null }
+      : m;
   const clinics = result.clinics
     .map(({ clinicId, code, displayName, ...rest }) => ({
       ...rest,
+      responder: guard(rest.responder),
+      recovered: guard(rest.recovered),
       label: steward ? code : clinicId === ownId ? `Your clinic (${code})` : (anonymous.get(clinicId) ?? 'Peer'),
       highlighted: clinicId === ownId,
       name: steward ? displayName : null,

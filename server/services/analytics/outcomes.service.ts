@@ -12,9 +12,10 @@ import type { OutcomesResponse } from '../../../shared/schemas/analytics';
 import type { Db } from '../../db/client';
 import { ForbiddenError } from '../../errors';
 import { metaOf, publicInstrument, type AnalyticsContext } from './context';
-import { loadEpisodeTuples, type EpisodeTuple, type TupleOptions } from './episode-tuples';
+import { loadEpisodeTuplesWithCounts, type EpisodeTuple, type ObsCount, type TupleOptions } from './episode-tuples';
 import {
   factsFor,
+  needsSeverity,
   followUpWindow,
   recoveryCurve,
   recoveryObs,
@@ -35,11 +36,14 @@ export function outcomesTupleOptions(ctx: AnalyticsContext): TupleOptions {
       threshold: ctx.recoveryRule.threshold,
       atLeast: ctx.recoveryRule.direction === 'atLeast',
     },
-    responder: { instrumentId: ctx.instrument.id, ...pw },
+    // Responders come from the subject's per-instrument columns; every episode's baseline only to narrow by severity.
+    responder: needsSeverity(ctx, false) ? { instrumentId: ctx.instrument.id, ...pw, primary: false } : undefined,
     changes: { ...pw, instrumentIds: ctx.instruments.map((i) => i.id) },
     completeness: rules.followUpWindows.week12,
     facts: factsFor(ctx.filters),
     quarter: true,
+    // With a clinic as subject and no subgroup to narrow by, the registry curve needs only counts.
+    registryAsCounts: ctx.subjectClinic !== null && !ctx.filters.subgroup,
   };
 }
 
@@ -50,7 +54,8 @@ export async function clinicOutcomes(db: Db, ctx: AnalyticsContext, dataVersion:
   const window = followUpWindow(rules);
   const pw = rules.primaryWindow;
   const subjectId = ctx.subjectClinic?.id ?? null;
-  const all = await loadEpisodeTuples(db, outcomesTupleOptions(ctx));
+  const options = outcomesTupleOptions(ctx);
+  const { tuples: all, counts } = await loadEpisodeTuplesWithCounts(db, options);
   const tuples = restrictToSubgroup(all, ctx.filters, ctx.instrument);
   const subject = tuples.filter((t) => t.own);
   const minCell = rules.minCellEstimate;
@@ -61,7 +66,8 @@ export async function clinicOutcomes(db: Db, ctx: AnalyticsContext, dataVersion:
   const completed = due.filter((t) => t.w12_done).length;
   const mcid = ctx.instrument.mcid;
   const respOpts = { higherIsBetter: ctx.instrument.higherIsBetter, threshold: mcid ?? 1, window };
-  const resp = mcid === null ? null : responderShare(subject.map(responderInput), respOpts);
+  const input = (t: EpisodeTuple) => ownResponderInput(t, ctx.instrument.id);
+  const resp = mcid === null ? null : responderShare(subject.map(input), respOpts);
   const respShare = resp?.share && resp.nAnalysed >= minCell ? resp.share : null;
 
   const week = pw.targetWeek;
@@ -69,7 +75,7 @@ export async function clinicOutcomes(db: Db, ctx: AnalyticsContext, dataVersion:
   const at = curve?.atWeeks[0];
   const recTarget = rules.targets.recoveredByWeek12;
   const meta = metaOf(ctx, dataVersion);
-  const registryObs = subjectId === null ? [] : obsOf(tuples);
+  const registryObs = subjectId === null ? [] : options.registryAsCounts ? expandCounts(counts) : obsOf(tuples);
 
   return {
     rulesVersion: ctx.rules.version,
@@ -129,7 +135,7 @@ export async function clinicOutcomes(db: Db, ctx: AnalyticsContext, dataVersion:
           ]),
     ],
     changes: changeDistributions(ctx, subject),
-    trend: responderTrend(subject, respOpts, mcid === null, minCell),
+    trend: responderTrend(subject, input, respOpts, mcid === null, minCell),
   };
 }
 
@@ -164,8 +170,22 @@ function changeDistributions(ctx: AnalyticsContext, subject: EpisodeTuple[]): Ou
     });
 }
 
+/** One observation per episode again, from the counts per (time, event). */
+function expandCounts(counts: ObsCount[]): Obs[] {
+  const out: Obs[] = [];
+  for (const c of counts) for (let k = 0; k < c.n; k++) out.push({ time: c.time, event: c.event });
+  return out;
+}
+
+/** Baseline and primary follow-up of one instrument from the subject's per-instrument columns. */
+function ownResponderInput(t: EpisodeTuple, instrumentId: number) {
+  const c = t.changes?.find((x) => x[0] === instrumentId);
+  return responderInput({ baseline: c?.[1] ?? null, primary_weeks: c?.[2] ?? null, primary_value: c?.[3] ?? null });
+}
+
 function responderTrend(
   subject: EpisodeTuple[],
+  input: (t: EpisodeTuple) => ReturnType<typeof responderInput>,
   opts: Parameters<typeof responderShare>[1],
   noMcid: boolean,
   minCell: number,
@@ -179,7 +199,7 @@ function responderTrend(
     else byQuarter.set(q, [t]);
   }
   return [...byQuarter.keys()].sort().map((quarter) => {
-    const r = responderShare((byQuarter.get(quarter) ?? []).map(responderInput), opts);
+    const r = responderShare((byQuarter.get(quarter) ?? []).map(input), opts);
     const tooFew = r.nAnalysed < minCell;
     return { quarter, nAnalysed: r.nAnalysed, responders: r.responders, share: tooFew ? null : r.share, tooFew };
   });

@@ -3,7 +3,7 @@ import type { RecoveryGroup, RecoveryResponse } from '../../../shared/schemas/an
 import type { Db } from '../../db/client';
 import { metaOf, type AnalyticsContext } from './context';
 import { loadEpisodeTuples, type TupleOptions } from './episode-tuples';
-import { factsFor, recoveryCurve, recoveryObs, restrictToSubgroup, subgroupLevel } from './tuple-inputs';
+import { factsFor, needsSeverity, recoveryCurve, recoveryObs, restrictToSubgroup, subgroupLevel } from './tuple-inputs';
 import { suppressSmall } from './suppress';
 
 /** Weeks at which the table reads the cumulative share recovered. */
@@ -26,8 +26,10 @@ export function recoveryTupleOptions(ctx: AnalyticsContext): TupleOptions {
       threshold: ctx.recoveryRule.threshold,
       atLeast: ctx.recoveryRule.direction === 'atLeast',
     },
-    // The baseline of the chosen instrument gives the severity band.
-    responder: { instrumentId: ctx.instrument.id, ...ctx.rules.rules.primaryWindow },
+    // The baseline of the chosen instrument gives the severity band (only fetched when it is needed).
+    responder: needsSeverity(ctx)
+      ? { instrumentId: ctx.instrument.id, ...ctx.rules.rules.primaryWindow, primary: false }
+      : undefined,
     facts: factsFor(ctx.filters, ctx.filters.groupBy),
   };
 }

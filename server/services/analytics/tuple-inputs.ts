@@ -57,6 +57,11 @@ export function subgroupLevel(key: SubgroupKey, t: EpisodeTuple, instrument: Ins
   }
 }
 
+/** Whether the baseline severity band is asked for (grouping or narrowing), so baselines must be loaded. */
+export function needsSeverity(ctx: { filters: AnalyticsFilters }, grouping = true): boolean {
+  return ctx.filters.subgroup === 'severity' || (grouping && ctx.filters.groupBy === 'severity');
+}
+
 /** The subgroup facts a query must return: what the filters narrow by, plus what the endpoint groups by. */
 export function factsFor(filters: AnalyticsFilters, ...extra: SubgroupKey[]): SubgroupKey[] {
   return [
