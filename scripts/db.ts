@@ -101,7 +101,9 @@ async function startLocal(): Promise<number> {
   if (already) return already;
 
   if (!existsSync(path.join(dir, 'PG_VERSION'))) {
-    mkdirSync(dir, { recursive: true, mode: 0o700 });
+    // Parent folders must stay traversable by the postgres user; only the data folder itself is private.
+    mkdirSync(path.dirname(dir), { recursive: true, mode: 0o755 });
+    if (!existsSync(dir)) mkdirSync(dir, { mode: 0o700 });
     if (isRoot) execFileSync('chown', ['-R', 'postgres:postgres', path.dirname(dir)]);
     run(path.join(bin, 'initdb'), ['-D', dir, '-A', 'trust', '-U', DB_USER, '-E', 'UTF8', '--locale=C.UTF-8']);
   }
