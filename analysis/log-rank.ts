@@ -1,5 +1,5 @@
 import type { GroupedObs, LogRankResult } from './types';
-import { groupSortedTimes } from './group-sorted-times';
+import { tagSortedTimes } from './tag-sorted-times';
 import { solveSymmetricPsd } from './solve-symmetric-psd';
 import { chiSquareUpperTail } from './chi-square-upper-tail';
 
@@ -20,9 +20,10 @@ import { chiSquareUpperTail } from './chi-square-upper-tail';
  * informative event time, the covariance matrix is singular; it is then
  * handled as a generalised inverse and `df` is its rank (less than k − 1).
  *
- * Cost: O(n) for the per-group radix sorts (O(n log n) for small groups),
- * O(T·k) for the sweep over T distinct times, O(E·k²) for the covariance at
- * E event times and O(k³) for the solve; O(n) memory.
+ * Cost: O(n) for one radix sort of all times with their group tags
+ * (`tagSortedTimes`; O(n log n) below 65 536), O(n) for the sweep, O(E·k²)
+ * for the expected counts and covariance at E distinct event times and
+ * O(k³) for the solve; O(n) memory.
  *
  * @param obs - observations with `time` (finite, >= 0), `event` (boolean)
  *   and `group` (string). Not modified.
@@ -35,65 +36,38 @@ import { chiSquareUpperTail } from './chi-square-upper-tail';
  * // { chiSquare: 16.79294, df: 1, pValue: 4.1688e-5, groups: [...] }
  */
 export function logRank(obs: readonly GroupedObs[]): LogRankResult {
-  const { labels, sizes, eventTimes, eventStart, censorTimes, censorStart } = groupSortedTimes(obs, 'logRank');
+  const { labels, sizes, times, tags } = tagSortedTimes(obs, 'logRank');
   const k = labels.length;
   if (k < 2) throw new RangeError('logRank: at least two groups are required');
   const m = k - 1;
+  const n = times.length;
 
   const atRisk = Float64Array.from(sizes);
-  const pe = eventStart.slice(0, k);
-  const pc = censorStart.slice(0, k);
-  // Current head (smallest unvisited time) of each group's two sorted blocks; Infinity when done.
-  const headE = new Float64Array(k);
-  const headC = new Float64Array(k);
-  for (let g = 0; g < k; g++) {
-    headE[g] = (pe[g] ?? 0) < (eventStart[g + 1] ?? 0) ? (eventTimes[pe[g] ?? 0] ?? Infinity) : Infinity;
-    headC[g] = (pc[g] ?? 0) < (censorStart[g + 1] ?? 0) ? (censorTimes[pc[g] ?? 0] ?? Infinity) : Infinity;
-  }
   const d = new Float64Array(k);
   const c = new Float64Array(k);
+  const touched = new Int32Array(k); // groups with an observation at the current time
   const observed = new Float64Array(k);
   const expected = new Float64Array(k);
   const cov = new Float64Array(m * m);
 
-  let total = obs.length;
-  while (total > 0) {
-    let t = Infinity;
-    for (let g = 0; g < k; g++) {
-      const he = headE[g] ?? Infinity;
-      const hc = headC[g] ?? Infinity;
-      if (he < t) t = he;
-      if (hc < t) t = hc;
-    }
+  let total = n;
+  let i = 0;
+  while (i < n) {
+    const t = times[i];
     let events = 0;
-    for (let g = 0; g < k; g++) {
-      let dg = 0;
-      if (headE[g] === t) {
-        let p = pe[g] ?? 0;
-        const end = eventStart[g + 1] ?? 0;
-        while (p < end && eventTimes[p] === t) p++;
-        dg = p - (pe[g] ?? 0);
-        pe[g] = p;
-        headE[g] = p < end ? (eventTimes[p] ?? Infinity) : Infinity;
-      }
-      let cg = 0;
-      if (headC[g] === t) {
-        let q = pc[g] ?? 0;
-        const end = censorStart[g + 1] ?? 0;
-        while (q < end && censorTimes[q] === t) q++;
-        cg = q - (pc[g] ?? 0);
-        pc[g] = q;
-        headC[g] = q < end ? (censorTimes[q] ?? Infinity) : Infinity;
-      }
-      d[g] = dg;
-      c[g] = cg;
-      events += dg;
+    let nTouched = 0;
+    while (i < n && times[i] === t) {
+      const tag = tags[i] ?? 0;
+      const g = tag >> 1;
+      if (d[g] === 0 && c[g] === 0) touched[nTouched++] = g;
+      if ((tag & 1) === 1) {
+        d[g] = (d[g] ?? 0) + 1;
+        events++;
+      } else c[g] = (c[g] ?? 0) + 1;
+      i++;
     }
     if (events > 0) {
-      for (let g = 0; g < k; g++) {
-        observed[g] = (observed[g] ?? 0) + (d[g] ?? 0);
-        expected[g] = (expected[g] ?? 0) + (events * (atRisk[g] ?? 0)) / total;
-      }
+      for (let g = 0; g < k; g++) expected[g] = (expected[g] ?? 0) + (events * (atRisk[g] ?? 0)) / total;
       if (total > 1 && events < total) {
         const w = (events * (total - events)) / (total * total * (total - 1));
         for (let g = 0; g < m; g++) {
@@ -106,10 +80,15 @@ export function logRank(obs: readonly GroupedObs[]): LogRankResult {
       }
     }
     // Events and censorings at t leave the risk set after t.
-    for (let g = 0; g < k; g++) {
-      const removed = (d[g] ?? 0) + (c[g] ?? 0);
+    for (let j = 0; j < nTouched; j++) {
+      const g = touched[j] ?? 0;
+      const dg = d[g] ?? 0;
+      const removed = dg + (c[g] ?? 0);
+      observed[g] = (observed[g] ?? 0) + dg;
       atRisk[g] = (atRisk[g] ?? 0) - removed;
       total -= removed;
+      d[g] = 0;
+      c[g] = 0;
     }
   }
 

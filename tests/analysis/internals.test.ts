@@ -1,6 +1,8 @@
 import { describe, it, expect } from 'vitest';
 import { solveSymmetricPsd, chiSquareUpperTail } from '../../analysis/index';
 import { sortNonNegative } from '../../analysis/sort-non-negative';
+import { sortTagged } from '../../analysis/sort-tagged';
+import { tagSortedTimes } from '../../analysis/tag-sorted-times';
 import multi from '../fixtures/stats/logrank-multigroup.json';
 import { expectClose } from './helpers/close';
 
@@ -87,5 +89,53 @@ describe('sortNonNegative (radix sort used by Kaplan-Meier and log-rank)', () =>
   });
   it('short arrays use the native sort', () => {
     expect(Array.from(sortNonNegative(Float64Array.of(3, 0.5, 2)))).toEqual([0.5, 2, 3]);
+  });
+});
+
+describe('sortTagged (radix sort carrying a tag, used by log-rank)', () => {
+  const lcg = (seed: number) => () => {
+    seed = (seed * 16807) % 2147483647;
+    return seed / 2147483647;
+  };
+  for (const n of [1_000, 150_000]) {
+    it(`orders values like Float64Array.prototype.sort and keeps each tag with its value (n = ${n})`, () => {
+      const next = lcg(n);
+      const values = Float64Array.from({ length: n }, (_, i) => (i % 5 === 0 ? Math.floor(next() * 30) : -Math.log(next()) * 20));
+      const tags = Int32Array.from({ length: n }, (_, i) => i);
+      const original = values.slice();
+      sortTagged(values, tags);
+      expect(Array.from(values)).toEqual(Array.from(original.slice().sort()));
+      // Every tag still points at its own value, and equal values keep their input order (stable).
+      for (let i = 0; i < n; i++) {
+        expect(original[tags[i] ?? -1]).toBe(values[i]);
+        if (i > 0 && values[i] === values[i - 1]) expect(tags[i] ?? 0).toBeGreaterThan(tags[i - 1] ?? 0);
+      }
+    });
+  }
+  it('refuses arrays of different lengths', () => {
+    expect(() => sortTagged(Float64Array.of(1, 2), Int32Array.of(1))).toThrow(RangeError);
+  });
+});
+
+describe('tagSortedTimes (one sorted pass over all groups)', () => {
+  it('numbers groups by label and tags each time with its group and event flag', () => {
+    const result = tagSortedTimes(
+      [
+        { time: 4, event: true, group: 'b' },
+        { time: 1, event: false, group: 'c' },
+        { time: 2, event: true, group: 'a' },
+        { time: 1, event: true, group: 'b' },
+      ],
+      'logRank',
+    );
+    expect(result.labels).toEqual(['a', 'b', 'c']);
+    expect(Array.from(result.sizes)).toEqual([1, 2, 1]);
+    expect(Array.from(result.times)).toEqual([1, 1, 2, 4]);
+    expect(Array.from(result.tags)).toEqual([2 * 2 + 0, 1 * 2 + 1, 0 * 2 + 1, 1 * 2 + 1]);
+  });
+  it('rejects a non-string group even when it follows a valid row', () => {
+    expect(() =>
+      tagSortedTimes([{ time: 1, event: true, group: 'a' }, { time: 1, event: true, group: 2 as unknown as string }], 'logRank'),
+    ).toThrow(/obs\[1\]\.group must be a string/);
   });
 });
