@@ -53,4 +53,5 @@ export { funnelPoint } from './outcomes/funnel-point';
 export { clinicComparison } from './outcomes/clinic-comparison';
 export { ageBand } from './outcomes/age-band';
 export { symptomDurationBand } from './outcomes/symptom-duration-band';
+export { severityBand, SEVERITY_BANDS, type SeverityBand } from './outcomes/severity-band';
 export { bmi } from './outcomes/bmi';

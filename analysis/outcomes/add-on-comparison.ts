@@ -55,11 +55,19 @@ export function compareAddOn(
       mhMissingStratum++;
       continue;
     }
-    const s = strata.get(e.stratum) ?? { exposedEvents: 0, exposedTotal: 0, unexposedEvents: 0, unexposedTotal: 0 };
-    if (exposed)
-      strata.set(e.stratum, { ...s, exposedEvents: s.exposedEvents + hit, exposedTotal: s.exposedTotal + 1 });
-    else
-      strata.set(e.stratum, { ...s, unexposedEvents: s.unexposedEvents + hit, unexposedTotal: s.unexposedTotal + 1 });
+    // One mutable counter per stratum: copying it per episode cost ~30% of the endpoint at 10⁵ episodes.
+    let s = strata.get(e.stratum);
+    if (s === undefined) {
+      s = { exposedEvents: 0, exposedTotal: 0, unexposedEvents: 0, unexposedTotal: 0 };
+      strata.set(e.stratum, s);
+    }
+    if (exposed) {
+      s.exposedEvents += hit;
+      s.exposedTotal++;
+    } else {
+      s.unexposedEvents += hit;
+      s.unexposedTotal++;
+    }
   }
   const informative = [...strata.values()].filter((s) => s.exposedTotal > 0 && s.unexposedTotal > 0);
   const base = {

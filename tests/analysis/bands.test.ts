@@ -1,5 +1,5 @@
 import { describe, it, expect } from 'vitest';
-import { ageBand, symptomDurationBand, compareWithTarget, stratumKey } from '../../analysis/index';
+import { ageBand, symptomDurationBand, compareWithTarget, stratumKey, severityBand } from '../../analysis/index';
 
 describe('ageBand: 5-year bands, 90+ top-coded (common practice, no published source)', () => {
   it.each([
@@ -59,5 +59,24 @@ describe('stratumKey', () => {
     expect(stratumKey('active', null)).toBeNull();
     expect(stratumKey('', '<3m')).toBeNull();
     expect(stratumKey()).toBeNull();
+  });
+});
+
+describe('baseline severity band (thirds of the range; common practice, no published source)', () => {
+  const nprs = { min: 0, max: 10, higherIsBetter: false };
+  const lefs = { min: 0, max: 80, higherIsBetter: true };
+  it('puts NPRS 0–3 in mild, 4–6 in moderate and 7–10 in severe', () => {
+    expect([0, 3, 4, 6, 7, 10].map((v) => severityBand(v, nprs))).toEqual([
+      'mild',
+      'mild',
+      'moderate',
+      'moderate',
+      'severe',
+      'severe',
+    ]);
+  });
+  it('reads a function scale the other way round (low function is severe)', () => {
+    expect([80, 60, 40, 10].map((v) => severityBand(v, lefs))).toEqual(['mild', 'mild', 'moderate', 'severe']);
+    expect(() => severityBand(5, { min: 3, max: 3, higherIsBetter: false })).toThrow(RangeError);
   });
 });

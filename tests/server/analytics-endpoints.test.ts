@@ -19,7 +19,7 @@ import {
   RecoveryResponseSchema,
   TrajectoryResponseSchema,
 } from '../../shared/schemas/analytics';
-import { severityBand } from '../../shared/schemas/analytics-subgroups';
+import { severityBand } from '../../analysis/index';
 import { assessments, clinics, episodes, instruments, scores } from '../../server/db/schema';
 import { testApp } from '../setup/test-app';
 import { signedInClient } from '../setup/auth';

@@ -4,6 +4,7 @@ import {
   bmiBand,
   kaplanMeier,
   recoveredShareAt,
+  severityBand,
   symptomDurationBand,
   type EpisodeScores,
   type FollowUpWindow,
@@ -12,7 +13,7 @@ import {
 import type { RegistryRules } from '../../../shared/rules';
 import type { CurvePoint } from '../../../shared/schemas/analytics';
 import type { AnalyticsFilters } from '../../../shared/schemas/analytics-filters';
-import { severityBand, type SubgroupKey } from '../../../shared/schemas/analytics-subgroups';
+import type { SubgroupKey } from '../../../shared/schemas/analytics-subgroups';
 import type { EpisodeTuple } from './episode-tuples';
 import type { Instrument } from './context';
 

@@ -1,5 +1,6 @@
 import { ACTIVITY_PROFILES, BMI_BANDS, DURATION_BANDS, SEXES } from '../../../shared/constants';
-import { SEVERITY_BANDS, SUBGROUP_KEYS, type SubgroupKey } from '../../../shared/schemas/analytics-subgroups';
+import { SEVERITY_BANDS } from '../../../analysis/outcomes/severity-band';
+import { SUBGROUP_KEYS, type SubgroupKey } from '../../../shared/schemas/analytics-subgroups';
 
 /** Words for the subgroup variables and their levels (our own wording). */
 export const SUBGROUP_LABELS: Record<SubgroupKey, string> = {
