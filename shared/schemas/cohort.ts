@@ -69,8 +69,11 @@ export const CohortCriteriaSchema = z
 export type CohortCriteria = z.infer<typeof CohortCriteriaSchema>;
 export type CohortCriteriaInput = z.input<typeof CohortCriteriaSchema>;
 
-/** A count as shown to the caller: exact, or "<k" when it is a small cell and the caller is a researcher. */
-export const CountCellSchema = z.union([z.number().int().min(0), z.string().regex(/^<\d+$/)]);
+/**
+ * A count as shown to the caller: exact; "<k" when it is a small cell and the caller is a researcher; or
+ * "hidden" when it is not small but is withheld so that a small cell cannot be worked out from it.
+ */
+export const CountCellSchema = z.union([z.number().int().min(0), z.string().regex(/^<\d+$/), z.literal('hidden')]);
 export type CountCell = z.infer<typeof CountCellSchema>;
 
 export const CohortSaveSchema = z.object({

@@ -5,6 +5,7 @@ import { ageBand, bmi, bmiBand } from '../../analysis';
 import { testApp } from '../setup/test-app';
 import { createUser, signedInClient, type Client } from '../setup/auth';
 import { randomSpecs, seedDataset, type Dataset } from './exports-fixtures';
+import { smallCellValues } from './attrition-leak';
 
 const ctx = testApp();
 let data: Dataset;
@@ -119,6 +120,10 @@ describe('cohort preview', () => {
     for (const s of shown.body.attrition) {
       for (const v of [s.excluded, s.remaining]) if (typeof v === 'number') expect(v === 0 || v >= 5).toBe(true);
     }
+    // No small cell can be worked out by subtracting shown counts (complementary suppression).
+    const values = smallCellValues(shown.body.attrition, 5);
+    expect(values.size).toBeGreaterThan(0);
+    for (const [cell, options] of values) expect(options.size, cell).toBeGreaterThanOrEqual(2);
   });
 
   it('rejects unknown codes and malformed criteria with 422', async () => {

@@ -8,6 +8,7 @@ import { assertRegistry } from './access';
 import { runCohort } from './evaluate';
 import { assertKnownCodes, loadReference, type Reference } from './reference';
 import { suppressionFor, type Suppress } from './small-cells';
+import { attritionCells } from './attrition-cells';
 import { summaryAccumulator } from './summary';
 
 /** Live preview of a cohort: count, clinics, the flow diagram and the outcome summary, small cells hidden for researchers. */
@@ -31,17 +32,18 @@ async function compute(
 ): Promise<CohortPreview> {
   const acc = summaryAccumulator(ref);
   const run = await runCohort(db, ref, rules, criteria, { scores: true, onIncluded: (f) => acc.add(f) });
-  let remaining = run.total;
+  const cells = attritionCells(run.total, run.excluded, s);
   const attrition = [
-    { step: 'registry', label: 'Episodes in the registry', excluded: 0, remaining: s.cell(run.total) },
-    ...run.steps.map((step, i) => {
-      const excluded = run.excluded[i] ?? 0;
-      remaining -= excluded;
-      return { step: step.key, label: step.label, excluded: s.cell(excluded), remaining: s.cell(remaining) };
-    }),
+    { step: 'registry', label: 'Episodes in the registry', excluded: 0, remaining: cells.remaining[0] ?? 0 },
+    ...run.steps.map((step, i) => ({
+      step: step.key,
+      label: step.label,
+      excluded: cells.excluded[i] ?? 0,
+      remaining: cells.remaining[i + 1] ?? 0,
+    })),
   ];
   return {
-    count: s.cell(run.count),
+    count: cells.remaining[run.steps.length] ?? s.cell(run.count),
     clinics: run.clinics,
     attrition,
     summary: acc.finish(rules, s),

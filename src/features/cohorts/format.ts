@@ -6,9 +6,14 @@ const pctFmt = new Intl.NumberFormat('en', { style: 'percent', maximumFractionDi
 
 export const DASH = '–';
 
-/** A count as the server sent it: a number, or "<k" when it is a small cell hidden from researchers. */
-export const countText = (c: CountCell) => (typeof c === 'number' ? intFmt.format(c) : c.replace('<', 'fewer than '));
-export const countShort = (c: CountCell) => (typeof c === 'number' ? intFmt.format(c) : c);
+/**
+ * A count as the server sent it: a number; "<k" when it is a small cell hidden from researchers; or
+ * "hidden" when it is withheld so that a small cell elsewhere in the table cannot be worked out.
+ */
+export const countText = (c: CountCell) =>
+  typeof c === 'number' ? intFmt.format(c) : c === 'hidden' ? 'withheld' : c.replace('<', 'fewer than ');
+export const countShort = (c: CountCell) =>
+  typeof c === 'number' ? intFmt.format(c) : c === 'hidden' ? 'withheld' : c;
 export const dec1 = (v: number | null | undefined) => (v === null || v === undefined ? DASH : oneDp.format(v));
 export const pct = (v: number | null | undefined) => (v === null || v === undefined ? DASH : pctFmt.format(v));
 
