@@ -56,7 +56,7 @@ export function ChartFrame({ title, summary, spec, table, fileName, note, minHei
         )}
       </div>
       <figcaption className="mt-2 text-xs leading-relaxed text-ink-soft">{summary}</figcaption>
-      <div id={tableId} hidden={!showTable} className="mt-4 overflow-x-auto" data-chart-table>
+      <div id={tableId} hidden={!showTable} className="relative mt-4 overflow-x-auto" data-chart-table>
         {table}
       </div>
     </figure>

@@ -56,7 +56,7 @@ export function DataTable<T extends RowData>(props: Props<T>) {
 
   return (
     <div className="space-y-3">
-      <div className="overflow-x-auto rounded border border-line bg-surface">
+      <div className="relative overflow-x-auto rounded border border-line bg-surface">
         <table className={`tabular w-full text-left text-sm ${props.busy ? 'opacity-60' : ''}`} aria-busy={props.busy}>
           <caption className="sr-only">{props.caption}</caption>
           <thead className="border-b border-line bg-canvas text-xs text-ink-soft">

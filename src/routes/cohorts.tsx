@@ -50,7 +50,7 @@ export function Component() {
           Define a cohort by its criteria, watch the count and outcomes as you go, and save it to request its data.
         </EmptyState>
       ) : (
-        <div className="overflow-x-auto rounded border border-line bg-surface">
+        <div className="relative overflow-x-auto rounded border border-line bg-surface">
           <table className="tabular w-full text-left text-sm">
             <caption className="sr-only">Saved cohorts</caption>
             <thead className="border-b border-line bg-canvas text-xs text-ink-soft">

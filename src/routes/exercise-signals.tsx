@@ -141,7 +141,7 @@ function AddOnTable({
   );
   if (!visible) return table;
   return (
-    <div className="overflow-x-auto rounded border border-line bg-surface p-2" data-testid="addon-table">
+    <div className="relative overflow-x-auto rounded border border-line bg-surface p-2" data-testid="addon-table">
       {table}
     </div>
   );

@@ -24,7 +24,7 @@ export function Component() {
       ) : log.data.items.length === 0 ? (
         <EmptyState title="No export yet">Exports appear here as researchers download approved requests.</EmptyState>
       ) : (
-        <div className="overflow-x-auto rounded border border-line bg-surface">
+        <div className="relative overflow-x-auto rounded border border-line bg-surface">
           <table className="tabular w-full text-left text-sm">
             <caption className="sr-only">Research exports, newest first</caption>
             <thead className="border-b border-line bg-canvas text-xs text-ink-soft">

@@ -6,7 +6,7 @@ export function AttritionTable({ steps }: { steps: CohortPreview['attrition'] })
   const withheld = steps.some((s) => s.excluded === 'hidden' || s.remaining === 'hidden');
   return (
     <div>
-      <div className="overflow-x-auto rounded border border-line bg-surface">
+      <div className="relative overflow-x-auto rounded border border-line bg-surface">
         <table className="tabular w-full text-left text-sm">
           <caption className="sr-only">How many episodes each criterion excluded, in order</caption>
           <thead className="border-b border-line bg-canvas text-xs text-ink-soft">

@@ -10,7 +10,7 @@ export function OutcomeSummaryView({ summary }: { summary: OutcomeSummary }) {
       {shown.length === 0 ? (
         <p className="text-sm text-ink-soft">No episode in this cohort has a baseline and a primary follow-up yet.</p>
       ) : (
-        <div className="overflow-x-auto rounded border border-line bg-surface">
+        <div className="relative overflow-x-auto rounded border border-line bg-surface">
           <table className="tabular w-full text-left text-sm">
             <caption className="sr-only">Change from baseline to the primary follow-up</caption>
             <thead className="border-b border-line bg-canvas text-xs text-ink-soft">

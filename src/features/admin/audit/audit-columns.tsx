@@ -12,7 +12,7 @@ function Detail({ detail }: { detail: Record<string, unknown> }) {
   return (
     <details>
       <summary className="cursor-pointer text-xs text-accent">{text.slice(0, 60)}…</summary>
-      <pre className="mt-1 max-w-md overflow-x-auto whitespace-pre-wrap break-all text-xs">
+      <pre className="relative mt-1 max-w-md overflow-x-auto whitespace-pre-wrap break-all text-xs">
         {JSON.stringify(detail, null, 2)}
       </pre>
     </details>

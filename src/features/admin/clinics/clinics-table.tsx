@@ -13,7 +13,7 @@ const td = 'px-4 py-2.5 align-top';
 export function ClinicsTable({ clinics }: { clinics: ClinicSummary[] }) {
   const [editing, setEditing] = useState<number | null>(null);
   return (
-    <div className="overflow-x-auto rounded border border-line bg-surface">
+    <div className="relative overflow-x-auto rounded border border-line bg-surface">
       <table className="tabular w-full text-left text-sm">
         <caption className="sr-only">Clinics of the registry</caption>
         <thead className="border-b border-line bg-canvas text-xs text-ink-soft">

@@ -80,7 +80,7 @@ function CodeActions({ c }: { c: InterventionCode }) {
 /** Intervention codes; `actions` off for a lead's read-only list of proposals. */
 export function CodesTable({ codes, actions }: { codes: InterventionCode[]; actions: boolean }) {
   return (
-    <div className="overflow-x-auto rounded border border-line bg-surface">
+    <div className="relative overflow-x-auto rounded border border-line bg-surface">
       <table className="tabular w-full text-left text-sm">
         <caption className="sr-only">Intervention codes</caption>
         <thead className="border-b border-line bg-canvas text-xs text-ink-soft">

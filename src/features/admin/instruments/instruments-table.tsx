@@ -53,7 +53,7 @@ function RowActions({ i, onEdit }: { i: Instrument; onEdit: () => void }) {
 export function InstrumentsTable({ instruments }: { instruments: Instrument[] }) {
   const [editing, setEditing] = useState<number | null>(null);
   return (
-    <div className="overflow-x-auto rounded border border-line bg-surface">
+    <div className="relative overflow-x-auto rounded border border-line bg-surface">
       <table className="tabular w-full text-left text-sm">
         <caption className="sr-only">Outcome measures</caption>
         <thead className="border-b border-line bg-canvas text-xs text-ink-soft">

@@ -7,7 +7,7 @@ export function RecoveryGroupsTable({ data, groups }: { data: RecoveryResponse; 
   const min = data.meta.minCellShown;
   const rows = [...groups, data.overall];
   return (
-    <div className="overflow-x-auto rounded border border-line bg-surface">
+    <div className="relative overflow-x-auto rounded border border-line bg-surface">
       <table className="tabular w-full text-left text-sm" data-testid="recovery-table">
         <caption className="px-4 pt-3 text-left text-sm font-medium text-ink">
           Recovery by {SUBGROUP_LABELS[data.groupBy].toLowerCase()}

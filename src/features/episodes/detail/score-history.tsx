@@ -56,7 +56,7 @@ export function ScoreHistory({ episode, instruments }: Props) {
           ))}
         </ul>
       ) : null}
-      <div className="overflow-x-auto rounded border border-line bg-surface">
+      <div className="relative overflow-x-auto rounded border border-line bg-surface">
         <table className="tabular w-full text-left text-sm">
           <caption className="sr-only">Assessments and scores of this episode</caption>
           <thead className="border-b border-line bg-canvas text-xs text-ink-soft">
