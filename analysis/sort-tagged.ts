@@ -1,9 +1,12 @@
-/** Below this length a comparison sort of indices beats the radix passes. */
-const RADIX_MIN_LENGTH = 65536;
-const BITS = 16;
-const BUCKETS = 1 << BITS;
-const MASK = BUCKETS - 1;
-const LITTLE_ENDIAN = new Uint8Array(Float64Array.of(1).buffer)[7] === 0x3f;
+import {
+  bucketOffsets,
+  digitHistograms,
+  LITTLE_ENDIAN,
+  RADIX_BITS,
+  RADIX_BUCKETS,
+  RADIX_MASK,
+  RADIX_MIN_LENGTH,
+} from './radix-digits';
 
 /**
  * In-place ascending sort of non-negative doubles that carries a tag along.
@@ -36,42 +39,21 @@ export function sortTagged(values: Float64Array, tags: Int32Array): void {
     sortByIndex(values, tags);
     return;
   }
-  const counts = new Uint32Array(4 * BUCKETS);
   const words = new Uint32Array(values.buffer, values.byteOffset, 2 * n);
-  for (let i = 0; i < n; i++) {
-    const lo = words[2 * i] ?? 0;
-    const hi = words[2 * i + 1] ?? 0;
-    const b0 = lo & MASK;
-    const b1 = BUCKETS + (lo >>> BITS);
-    const b2 = 2 * BUCKETS + (hi & MASK);
-    const b3 = 3 * BUCKETS + (hi >>> BITS);
-    counts[b0] = (counts[b0] ?? 0) + 1;
-    counts[b1] = (counts[b1] ?? 0) + 1;
-    counts[b2] = (counts[b2] ?? 0) + 1;
-    counts[b3] = (counts[b3] ?? 0) + 1;
-  }
+  const counts = digitHistograms(words, n);
   let src: Float64Array = values;
   let srcTags: Int32Array = tags;
   let srcWords: Uint32Array = words;
   let dst: Float64Array = new Float64Array(n);
   let dstTags: Int32Array = new Int32Array(n);
   let dstWords: Uint32Array = new Uint32Array(dst.buffer, dst.byteOffset, 2 * n);
-  const offsets = new Uint32Array(BUCKETS);
+  const offsets = new Uint32Array(RADIX_BUCKETS);
   for (let pass = 0; pass < 4; pass++) {
-    const base = pass * BUCKETS;
-    let sum = 0;
-    let skip = false;
-    for (let b = 0; b < BUCKETS; b++) {
-      const c = counts[base + b] ?? 0;
-      if (c === n) skip = true;
-      offsets[b] = sum;
-      sum += c;
-    }
-    if (skip) continue;
+    if (!bucketOffsets(counts, pass, n, offsets)) continue;
     const wordIndex = pass >> 1;
-    const shift = (pass & 1) * BITS;
+    const shift = (pass & 1) * RADIX_BITS;
     for (let i = 0; i < n; i++) {
-      const digit = ((srcWords[2 * i + wordIndex] ?? 0) >>> shift) & MASK;
+      const digit = ((srcWords[2 * i + wordIndex] ?? 0) >>> shift) & RADIX_MASK;
       const pos = offsets[digit] ?? 0;
       offsets[digit] = pos + 1;
       dst[pos] = src[i] ?? 0;
