@@ -7,6 +7,7 @@ import { FormField, inputClass } from '../components/form-field';
 import { useAcceptInvitation } from '../features/auth/api/accept-invitation';
 import { AuthPanel, FormMessage, primaryButton } from '../features/auth/components/auth-panel';
 import { MissingToken } from '../features/auth/components/missing-token';
+import { NewPasswordFields } from '../features/auth/components/new-password-fields';
 import { accountErrorText } from '../features/auth/error-words';
 import { AcceptFormSchema, type AcceptForm } from '../features/auth/password-forms';
 
@@ -45,33 +46,13 @@ export function Component() {
             <input {...a11y} type="text" autoComplete="name" className={inputClass} {...form.register('name')} />
           )}
         </FormField>
-        <FormField
-          id="password"
-          label="Password"
+        <NewPasswordFields
+          password={form.register('password')}
+          confirm={form.register('confirm')}
+          errors={errors}
+          labels={{ password: 'Password', confirm: 'Password again' }}
           hint={`At least ${PASSWORD_MIN} characters.`}
-          error={errors.password?.message}
-        >
-          {(a11y) => (
-            <input
-              {...a11y}
-              type="password"
-              autoComplete="new-password"
-              className={inputClass}
-              {...form.register('password')}
-            />
-          )}
-        </FormField>
-        <FormField id="confirm" label="Password again" error={errors.confirm?.message}>
-          {(a11y) => (
-            <input
-              {...a11y}
-              type="password"
-              autoComplete="new-password"
-              className={inputClass}
-              {...form.register('confirm')}
-            />
-          )}
-        </FormField>
+        />
         <button type="submit" disabled={accept.isPending} className={primaryButton}>
           {accept.isPending ? 'Setting up…' : 'Open my account'}
         </button>

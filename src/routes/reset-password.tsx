@@ -2,10 +2,10 @@ import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { Link, useSearchParams } from 'react-router-dom';
 import { paths } from '../config/paths';
-import { FormField, inputClass } from '../components/form-field';
 import { useResetPassword } from '../features/auth/api/reset-password';
 import { AuthPanel, FormMessage, primaryButton } from '../features/auth/components/auth-panel';
 import { MissingToken } from '../features/auth/components/missing-token';
+import { NewPasswordFields } from '../features/auth/components/new-password-fields';
 import { accountErrorText } from '../features/auth/error-words';
 import { NewPasswordFormSchema, type NewPasswordForm } from '../features/auth/password-forms';
 import { PASSWORD_MIN } from '../../shared/account';
@@ -48,28 +48,12 @@ export function Component() {
             </Link>
           </div>
         ) : null}
-        <FormField id="password" label="New password" error={errors.password?.message}>
-          {(a11y) => (
-            <input
-              {...a11y}
-              type="password"
-              autoComplete="new-password"
-              className={inputClass}
-              {...form.register('password')}
-            />
-          )}
-        </FormField>
-        <FormField id="confirm" label="New password again" error={errors.confirm?.message}>
-          {(a11y) => (
-            <input
-              {...a11y}
-              type="password"
-              autoComplete="new-password"
-              className={inputClass}
-              {...form.register('confirm')}
-            />
-          )}
-        </FormField>
+        <NewPasswordFields
+          password={form.register('password')}
+          confirm={form.register('confirm')}
+          errors={errors}
+          labels={{ password: 'New password', confirm: 'New password again' }}
+        />
         <button type="submit" disabled={reset.isPending} className={primaryButton}>
           {reset.isPending ? 'Saving…' : 'Save the new password'}
         </button>
