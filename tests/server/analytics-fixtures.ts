@@ -10,6 +10,7 @@ import {
   interventionCodes,
   scores,
 } from '../../server/db/schema';
+import { addDays, prng } from '../setup/fixture-tools';
 import { createUser } from '../setup/auth';
 
 /**
@@ -17,20 +18,6 @@ import { createUser } from '../setup/auth';
  * course of heel pain each (first-step pain falling over weeks, some follow-ups missed, add-ons at random).
  */
 
-function prng(seed: number): () => number {
-  let s = seed >>> 0 || 1;
-  return () => {
-    s ^= s << 13;
-    s >>>= 0;
-    s ^= s >>> 17;
-    s ^= s << 5;
-    s >>>= 0;
-    return s / 4294967296;
-  };
-}
-
-const addDays = (iso: string, days: number) =>
-  new Date(Date.parse(`${iso}T00:00:00Z`) + days * 86_400_000).toISOString().slice(0, 10);
 const clamp = (v: number, lo: number, hi: number) => Math.min(hi, Math.max(lo, v));
 
 export type AnalyticsFixture = {

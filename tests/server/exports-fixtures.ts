@@ -10,27 +10,15 @@ import {
   interventionCodes,
   scores,
 } from '../../server/db/schema';
+import { addDays, prng } from '../setup/fixture-tools';
+
+export { addDays };
 
 /**
  * An invented research dataset for the cohort and export tests: fictional clinics and episodes under a
  * condition code of their own, so a cohort on that condition sees exactly these rows whatever else the shared
  * test database holds. Deterministic (seeded), and every source row is returned so tests can check the file.
  */
-
-function prng(seed: number): () => number {
-  let s = seed >>> 0 || 1;
-  return () => {
-    s ^= s << 13;
-    s >>>= 0;
-    s ^= s >>> 17;
-    s ^= s << 5;
-    s >>>= 0;
-    return s / 4294967296;
-  };
-}
-
-export const addDays = (iso: string, days: number) =>
-  new Date(Date.parse(`${iso}T00:00:00Z`) + days * 86_400_000).toISOString().slice(0, 10);
 
 export type Visit = { day: number; scores: Record<string, number> };
 export type EpisodeSpec = {
