@@ -1,13 +1,8 @@
 import { FilterBar } from '../components/filter-bar';
 import { useSession } from '../features/auth';
 import { useAddOns } from '../features/analytics/api/get-addons';
-import {
-  AssociationCaution,
-  DashboardError,
-  DashboardHeader,
-  DashboardLoading,
-} from '../features/analytics/components/dashboard-parts';
-import { useFilterParams } from '../features/analytics/filters';
+import { AssociationCaution, DashboardBody, DashboardHeader } from '../features/analytics/components/dashboard-parts';
+import { NO_FILTERS, useFilterParams } from '../features/analytics/filters';
 import { count, pValue, ratio } from '../features/analytics/format';
 import { ChartFrame } from '../charts/chart-frame';
 import { ChartTable } from '../charts/chart-table';
@@ -46,56 +41,39 @@ export function Component() {
         show={{ clinic: role !== 'researcher' }}
         busy={q.isFetching && !q.isPending}
       />
-      {q.isPending ? (
-        <DashboardLoading label="Comparing responders with and without each add-on…" />
-      ) : q.isError && !data ? (
-        <DashboardError
-          error={q.error}
-          onRetry={() => q.refetch()}
-          onReset={() =>
-            set({
-              instrument: undefined,
-              clinic: undefined,
-              subgroup: undefined,
-              level: undefined,
-              from: undefined,
-              to: undefined,
-            })
-          }
-        />
-      ) : data ? (
-        <div className={`space-y-6 transition-opacity ${q.isPlaceholderData ? 'opacity-60' : ''}`}>
-          {q.isError ? (
-            <DashboardError
-              error={q.error}
-              onRetry={() => q.refetch()}
-              onReset={() => set({ instrument: undefined })}
-            />
-          ) : null}
-          {estimable.length === 0 ? (
-            <p className="rounded border border-dashed border-line bg-surface px-6 py-10 text-sm text-ink-soft">
-              No add-on has {data.minArm} or more episodes both with and without it here, so no ratio is shown. Widen
-              the period or look at the whole registry.
+      <DashboardBody
+        query={q}
+        loading="Comparing responders with and without each add-on…"
+        onReset={() => set(NO_FILTERS)}
+        className="space-y-6"
+      >
+        {(data) => (
+          <>
+            {estimable.length === 0 ? (
+              <p className="rounded border border-dashed border-line bg-surface px-6 py-10 text-sm text-ink-soft">
+                No add-on has {data.minArm} or more episodes both with and without it here, so no ratio is shown. Widen
+                the period or look at the whole registry.
+              </p>
+            ) : (
+              <ChartFrame
+                testId="chart-forest"
+                title="Risk ratio of responding, with versus without each add-on"
+                note={`Responder: improvement of at least the MCID (${data.instrument.mcid} ${data.instrument.unit}) on ${data.instrument.label} near week 12. Adjusted: Mantel-Haenszel over ${data.stratifiedBy}.`}
+                summary={summary}
+                fileName="loadline-exercise-signals"
+                spec={forestSpec(estimable, summary)}
+                minHeight={Math.max(200, estimable.length * 34 + 80)}
+                table={<AddOnTable rows={data.rows} min={min} minArm={data.minArm} />}
+              />
+            )}
+            <AddOnTable rows={data.rows} min={min} minArm={data.minArm} visible />
+            <p className="text-xs text-ink-faint">
+              {count(data.nEpisodes, min)} episodes; {count(data.nMissingOutcome, min)} without a follow-up near week 12
+              are left out of every comparison.
             </p>
-          ) : (
-            <ChartFrame
-              testId="chart-forest"
-              title="Risk ratio of responding, with versus without each add-on"
-              note={`Responder: improvement of at least the MCID (${data.instrument.mcid} ${data.instrument.unit}) on ${data.instrument.label} near week 12. Adjusted: Mantel-Haenszel over ${data.stratifiedBy}.`}
-              summary={summary}
-              fileName="loadline-exercise-signals"
-              spec={forestSpec(estimable, summary)}
-              minHeight={Math.max(200, estimable.length * 34 + 80)}
-              table={<AddOnTable rows={data.rows} min={min} minArm={data.minArm} />}
-            />
-          )}
-          <AddOnTable rows={data.rows} min={min} minArm={data.minArm} visible />
-          <p className="text-xs text-ink-faint">
-            {count(data.nEpisodes, min)} episodes; {count(data.nMissingOutcome, min)} without a follow-up near week 12
-            are left out of every comparison.
-          </p>
-        </div>
-      ) : null}
+          </>
+        )}
+      </DashboardBody>
     </section>
   );
 }

@@ -1,8 +1,8 @@
 import { FilterBar } from '../components/filter-bar';
 import { useSession } from '../features/auth';
 import { useClinics } from '../features/analytics/api/get-clinics';
-import { DashboardError, DashboardHeader, DashboardLoading } from '../features/analytics/components/dashboard-parts';
-import { useFilterParams } from '../features/analytics/filters';
+import { DashboardBody, DashboardHeader } from '../features/analytics/components/dashboard-parts';
+import { NO_FILTERS, useFilterParams } from '../features/analytics/filters';
 import { int, pct } from '../features/analytics/format';
 import { ChartFrame } from '../charts/chart-frame';
 import { ChartTable } from '../charts/chart-table';
@@ -59,58 +59,55 @@ export function Component() {
           </button>
         ))}
       </div>
-      {q.isPending ? (
-        <DashboardLoading label="Placing the clinics on the funnel…" />
-      ) : q.isError && !data ? (
-        <DashboardError
-          error={q.error}
-          onRetry={() => q.refetch()}
-          onReset={() =>
-            set({ instrument: undefined, subgroup: undefined, level: undefined, from: undefined, to: undefined })
-          }
-        />
-      ) : data ? (
-        <div className={`space-y-4 transition-opacity ${q.isPlaceholderData ? 'opacity-60' : ''}`}>
-          {data.clinics.length === 0 || centre === null ? (
-            <p className="rounded border border-dashed border-line bg-surface px-6 py-10 text-sm text-ink-soft">
-              No clinic has {data.minEpisodes} or more episodes with a known outcome here.
-            </p>
-          ) : (
-            <ChartFrame
-              testId="chart-funnel"
-              title={`${label}, by clinic size`}
-              note={`Centre line: pooled share ${pct(centre)}. Dashed: 95% limits; solid: 99.8% limits (exact binomial).${data.hiddenSmall ? ` ${data.hiddenSmall} clinic${data.hiddenSmall === 1 ? '' : 's'} with fewer than ${data.minEpisodes} episodes left out.` : ''}`}
-              summary={summary}
-              fileName={`loadline-peers-${measure}`}
-              spec={funnelSpec(data, measure, summary)}
-              minHeight={340}
-              table={
-                <ChartTable<Row>
-                  caption={`${label} by clinic`}
-                  rowKey={(r) => r.label}
-                  rows={data.clinics}
-                  columns={[
-                    { header: 'Clinic', cell: (r) => (r.name ? `${r.label} · ${r.name}` : r.label) },
-                    { header: 'Episodes', cell: (r) => int(r.nEpisodes), numeric: true },
-                    { header: 'Known outcome', cell: (r) => int(r[measure].n), numeric: true },
-                    { header: 'Share', cell: (r) => pct(r[measure].share), numeric: true },
-                    { header: '95% limits', cell: (r) => (r[measure].flag95 ? FLAG_WORDS[r[measure].flag95] : '–') },
-                    {
-                      header: '99.8% limits',
-                      cell: (r) => (r[measure].flag998 ? FLAG_WORDS[r[measure].flag998] : '–'),
-                    },
-                  ]}
-                />
-              }
-            />
-          )}
-          {role === 'lead' && !own ? (
-            <p className="text-sm text-ink-soft">
-              Your clinic has fewer than {data.minEpisodes} episodes here, so it is not shown.
-            </p>
-          ) : null}
-        </div>
-      ) : null}
+      <DashboardBody
+        query={q}
+        loading="Placing the clinics on the funnel…"
+        onReset={() => set(NO_FILTERS)}
+        className="space-y-4"
+      >
+        {(data) => (
+          <>
+            {data.clinics.length === 0 || centre === null ? (
+              <p className="rounded border border-dashed border-line bg-surface px-6 py-10 text-sm text-ink-soft">
+                No clinic has {data.minEpisodes} or more episodes with a known outcome here.
+              </p>
+            ) : (
+              <ChartFrame
+                testId="chart-funnel"
+                title={`${label}, by clinic size`}
+                note={`Centre line: pooled share ${pct(centre)}. Dashed: 95% limits; solid: 99.8% limits (exact binomial).${data.hiddenSmall ? ` ${data.hiddenSmall} clinic${data.hiddenSmall === 1 ? '' : 's'} with fewer than ${data.minEpisodes} episodes left out.` : ''}`}
+                summary={summary}
+                fileName={`loadline-peers-${measure}`}
+                spec={funnelSpec(data, measure, summary)}
+                minHeight={340}
+                table={
+                  <ChartTable<Row>
+                    caption={`${label} by clinic`}
+                    rowKey={(r) => r.label}
+                    rows={data.clinics}
+                    columns={[
+                      { header: 'Clinic', cell: (r) => (r.name ? `${r.label} · ${r.name}` : r.label) },
+                      { header: 'Episodes', cell: (r) => int(r.nEpisodes), numeric: true },
+                      { header: 'Known outcome', cell: (r) => int(r[measure].n), numeric: true },
+                      { header: 'Share', cell: (r) => pct(r[measure].share), numeric: true },
+                      { header: '95% limits', cell: (r) => (r[measure].flag95 ? FLAG_WORDS[r[measure].flag95] : '–') },
+                      {
+                        header: '99.8% limits',
+                        cell: (r) => (r[measure].flag998 ? FLAG_WORDS[r[measure].flag998] : '–'),
+                      },
+                    ]}
+                  />
+                }
+              />
+            )}
+            {role === 'lead' && !own ? (
+              <p className="text-sm text-ink-soft">
+                Your clinic has fewer than {data.minEpisodes} episodes here, so it is not shown.
+              </p>
+            ) : null}
+          </>
+        )}
+      </DashboardBody>
     </section>
   );
 }

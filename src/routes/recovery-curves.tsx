@@ -1,10 +1,10 @@
 import { FilterBar } from '../components/filter-bar';
 import { useSession } from '../features/auth';
 import { useRecovery } from '../features/analytics/api/get-recovery';
-import { DashboardError, DashboardHeader, DashboardLoading } from '../features/analytics/components/dashboard-parts';
+import { DashboardBody, DashboardHeader } from '../features/analytics/components/dashboard-parts';
 import { RecoveryCurvePanel } from '../features/analytics/components/recovery-curve-panel';
 import { RecoveryGroupsTable } from '../features/analytics/components/recovery-groups-table';
-import { useFilterParams } from '../features/analytics/filters';
+import { NO_FILTERS, useFilterParams } from '../features/analytics/filters';
 import { levelLabel, SUBGROUP_LABELS, sortLevels } from '../features/analytics/labels';
 import { pct } from '../features/analytics/format';
 import { OKABE_ITO } from '../charts/theme';
@@ -38,60 +38,47 @@ export function Component() {
         show={{ clinic: role !== 'researcher', groupBy: true }}
         busy={q.isFetching && !q.isPending}
       />
-      {q.isPending ? (
-        <DashboardLoading label="Computing the recovery curves…" />
-      ) : q.isError && !data ? (
-        <DashboardError
-          error={q.error}
-          onRetry={() => q.refetch()}
-          onReset={() =>
-            set({
-              from: undefined,
-              to: undefined,
-              instrument: undefined,
-              clinic: undefined,
-              groupBy: undefined,
-              subgroup: undefined,
-              level: undefined,
-            })
-          }
-        />
-      ) : data ? (
-        <div
-          className={`grid gap-6 transition-opacity 2xl:grid-cols-[minmax(0,3fr)_minmax(0,2fr)] ${q.isPlaceholderData ? 'opacity-60' : ''}`}
-        >
-          {drawn.length === 0 ? (
-            <p className="rounded border border-dashed border-line bg-surface px-6 py-10 text-sm text-ink-soft">
-              No group has {data.meta.minCellEstimate} or more episodes with these filters, so no curve can be
-              estimated. Widen the period or choose another subgroup.
-            </p>
-          ) : (
-            <RecoveryCurvePanel
-              testId="chart-recovery-groups"
-              title={`Recovered over time by ${SUBGROUP_LABELS[data.groupBy].toLowerCase()}`}
-              fileName={`loadline-recovery-by-${data.groupBy}`}
-              note={
-                <>
-                  Recovered = {data.rule.instrumentLabel.toLowerCase()}{' '}
-                  {data.rule.direction === 'atMost' ? 'at or below' : 'at or above'} {data.rule.threshold}. Shaded: 95%
-                  intervals.
-                  {tooFew.length ? ` Too few to estimate: ${tooFew.map((g) => levelLabel(g.level)).join(', ')}.` : ''}
-                </>
-              }
-              series={drawn.map((g) => ({
-                label: levelLabel(g.level),
-                points: g.curve ?? [],
-                readings: g.readings ?? [],
-                colour: OKABE_ITO[groups.indexOf(g) % OKABE_ITO.length],
-              }))}
-              summary={`Cumulative share recovered by week for each ${SUBGROUP_LABELS[data.groupBy].toLowerCase()} with at least ${data.meta.minCellEstimate} episodes. By week 12: ${drawn
-                .map((g) => `${levelLabel(g.level)} ${pct(g.atWeeks.find((a) => a.weeks === 12)?.estimate)}`)
-                .join(', ')}.`}
-            />
-          )}
-          <RecoveryGroupsTable data={data} groups={groups} />
-        </div>
-      ) : null}
+      <DashboardBody
+        query={q}
+        loading="Computing the recovery curves…"
+        onReset={() => set(NO_FILTERS)}
+        className="grid gap-6 2xl:grid-cols-[minmax(0,3fr)_minmax(0,2fr)]"
+      >
+        {(data) => (
+          <>
+            {drawn.length === 0 ? (
+              <p className="rounded border border-dashed border-line bg-surface px-6 py-10 text-sm text-ink-soft">
+                No group has {data.meta.minCellEstimate} or more episodes with these filters, so no curve can be
+                estimated. Widen the period or choose another subgroup.
+              </p>
+            ) : (
+              <RecoveryCurvePanel
+                testId="chart-recovery-groups"
+                title={`Recovered over time by ${SUBGROUP_LABELS[data.groupBy].toLowerCase()}`}
+                fileName={`loadline-recovery-by-${data.groupBy}`}
+                note={
+                  <>
+                    Recovered = {data.rule.instrumentLabel.toLowerCase()}{' '}
+                    {data.rule.direction === 'atMost' ? 'at or below' : 'at or above'} {data.rule.threshold}. Shaded:
+                    95% intervals.
+                    {tooFew.length ? ` Too few to estimate: ${tooFew.map((g) => levelLabel(g.level)).join(', ')}.` : ''}
+                  </>
+                }
+                series={drawn.map((g) => ({
+                  label: levelLabel(g.level),
+                  points: g.curve ?? [],
+                  readings: g.readings ?? [],
+                  colour: OKABE_ITO[groups.indexOf(g) % OKABE_ITO.length],
+                }))}
+                summary={`Cumulative share recovered by week for each ${SUBGROUP_LABELS[data.groupBy].toLowerCase()} with at least ${data.meta.minCellEstimate} episodes. By week 12: ${drawn
+                  .map((g) => `${levelLabel(g.level)} ${pct(g.atWeeks.find((a) => a.weeks === 12)?.estimate)}`)
+                  .join(', ')}.`}
+              />
+            )}
+            <RecoveryGroupsTable data={data} groups={groups} />
+          </>
+        )}
+      </DashboardBody>
     </section>
   );
 }

@@ -50,3 +50,8 @@ export function useFilterParams() {
   );
   return { filters, search, set };
 }
+
+/** Every analytics filter removed: what "Clear the filters" sends to `set`. */
+export const NO_FILTERS: Partial<Record<FilterKey, undefined>> = Object.fromEntries(
+  ANALYTICS_FILTER_KEYS.map((k) => [k, undefined]),
+);

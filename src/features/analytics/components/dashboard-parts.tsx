@@ -82,3 +82,42 @@ export function AssociationCaution() {
     </aside>
   );
 }
+
+type DashboardQuery<T> = {
+  data: T | undefined;
+  error: unknown;
+  isPending: boolean;
+  isError: boolean;
+  isPlaceholderData: boolean;
+  refetch: () => unknown;
+};
+
+/**
+ * What every dashboard shows below its filters: the loading outline, a failure with a way out (retry, or
+ * clear the filters when the address holds invalid ones), or the numbers, dimmed while newer ones load.
+ * A failed refresh over numbers already shown keeps them and says so above them.
+ */
+export function DashboardBody<T>({
+  query,
+  loading,
+  onReset,
+  className = 'space-y-6',
+  children,
+}: {
+  query: DashboardQuery<T>;
+  loading: string;
+  onReset: () => void;
+  className?: string;
+  children: (data: T) => ReactNode;
+}) {
+  if (query.isPending) return <DashboardLoading label={loading} />;
+  const retry = () => void query.refetch();
+  if (query.data === undefined)
+    return query.isError ? <DashboardError error={query.error} onRetry={retry} onReset={onReset} /> : null;
+  return (
+    <div className={`${className} transition-opacity ${query.isPlaceholderData ? 'opacity-60' : ''}`}>
+      {query.isError ? <DashboardError error={query.error} onRetry={retry} onReset={onReset} /> : null}
+      {children(query.data)}
+    </div>
+  );
+}
