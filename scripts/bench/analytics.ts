@@ -163,7 +163,7 @@ async function benchSize(n: number): Promise<void> {
       console.log(`${c.name.padEnd(10)} floor median ${fmt(floor.median)}  p95 ${fmt(floor.p95)}  (SQL tuples only)`);
       if (options)
         console.log(
-          `${c.name.padEnd(10)} ratio cold/floor ${ratio.toFixed(2)}× ${ratio <= 3 ? 'ok (<= 3×)' : 'OVER 3× the floor'}`,
+          `${c.name.padEnd(10)} cold median / floor median ratio=${ratio.toFixed(2)} ${ratio <= 3 ? 'ok (<= 3)' : 'OVER 3 times the floor'}`,
         );
     }
   } finally {
