@@ -20,7 +20,20 @@ export function looksLikeFormula(raw: string): boolean {
 
 const FORMULA = 'starts with = + - or @ like a spreadsheet formula; remove that character (the registry stores no formulas)';
 
+// Clinics reuse a handful of intervention lists: each distinct cell is read once, and episodes share the
+// (never modified) result instead of holding their own copies of the same small objects.
+const LISTS = new Map<string, Cell>();
 function interventions(raw: string): Cell {
+  let cell = LISTS.get(raw);
+  if (cell === undefined) {
+    if (LISTS.size > 5_000) LISTS.clear();
+    cell = readInterventions(raw);
+    LISTS.set(raw, cell);
+  }
+  return cell;
+}
+
+function readInterventions(raw: string): Cell {
   const out: InterventionInput[] = [];
   for (const part of raw.split(';').map((p) => p.trim()).filter((p) => p !== '')) {
     if (looksLikeFormula(part)) return { ok: false, message: `“${part}” ${FORMULA}` };

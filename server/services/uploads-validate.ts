@@ -5,6 +5,7 @@ import { UPLOAD_COLUMNS } from '../../shared/upload-columns';
 import type { IssueLog } from './uploads-issues';
 import type { Header } from './uploads-parse';
 import { readCell } from './uploads-cells';
+import { RowStore } from './uploads-rows';
 import { scoreProblems } from './reference-checks';
 import type { ReferenceData } from './reference.service';
 
@@ -28,18 +29,36 @@ export type UploadAssessment = {
 };
 
 /** All rows of one episode reference in the file; `fields` is null when the episode columns are not valid. */
-export type UploadEpisode = {
+export type ReadEpisode = {
   reference: string;
   firstRow: number;
   /** The first row's episode cells as written (a later row that differs is compared as read: "Yes" = "yes"). */
   rawKey: string;
   fields: UploadEpisodeFields | null;
   interventions: InterventionInput[] | undefined;
-  rows: UploadAssessment[];
+  /** The episode's accepted rows, as indices into the file's RowStore. */
+  rowIds: number[];
 };
+/** An episode as the planner reads it: its rows as objects (made chunk by chunk from the RowStore). */
+export type UploadEpisode = Omit<ReadEpisode, 'rawKey' | 'rowIds'> & { rows: UploadAssessment[] };
 
 const COLUMN_OF_FIELD = new Map(UPLOAD_COLUMNS.filter((c) => c.level !== 'score').map((c) => [c.field, c.name]));
 const COLUMN_OF_SCORE = new Map(UPLOAD_COLUMNS.filter((c) => c.level === 'score').map((c) => [c.field, c.name]));
+
+/** An assessment row with its date checked apart (below), against the same shared schema. */
+const RowAssessmentSchema = AssessmentInputSchema.extend({ assessedOn: z.string() });
+const DATE_ISSUES = new Map<string, z.core.$ZodIssue[]>();
+/** The shared date schema's issues for a date; dates repeat across rows (a few hundred days), so each is checked once. */
+function dateIssues(s: string): z.core.$ZodIssue[] {
+  let issues = DATE_ISSUES.get(s);
+  if (issues === undefined) {
+    if (DATE_ISSUES.size > 20_000) DATE_ISSUES.clear();
+    const r = IsoDateSchema.safeParse(s);
+    issues = r.success ? [] : r.error.issues;
+    DATE_ISSUES.set(s, issues);
+  }
+  return issues;
+}
 
 /** Zod's default range messages, said plainly; the shared schemas' own messages are kept as they are. */
 function plain(issue: z.core.$ZodIssue): string {
@@ -51,13 +70,19 @@ function plain(issue: z.core.$ZodIssue): string {
 
 /** Reads rows one at a time into episodes; problems go to the log with their row and column. */
 export class RowCollector {
-  readonly episodes = new Map<string, UploadEpisode>();
+  readonly episodes = new Map<string, ReadEpisode>();
   private refIndex = -1;
+  private rowStore: RowStore | undefined;
 
   constructor(
     private readonly log: IssueLog,
     private readonly ref: ReferenceData,
   ) {}
+
+  /** The accepted rows (undefined until a row is read). */
+  get store(): RowStore | undefined {
+    return this.rowStore;
+  }
 
   add(cells: string[], row: number, header: Header): void {
     const rawKey = this.rawEpisodeKey(cells, header);
@@ -100,7 +125,11 @@ export class RowCollector {
     }
     const scores: Record<string, number> = {};
     for (const code in scoreCells) if (scoreCells[code] !== null) scores[code] = scoreCells[code]!;
-    const parsed = AssessmentInputSchema.safeParse({ ...asm, scores, avgDailySteps: asm.avgDailySteps ?? null, adverseEvent: asm.adverseEvent ?? null });
+    const dateProblems = typeof asm.assessedOn === 'string' ? dateIssues(asm.assessedOn) : null;
+    for (const issue of dateProblems ?? []) this.log.add(row, 'assessed_on', plain(issue));
+    const schema = dateProblems ? RowAssessmentSchema : AssessmentInputSchema;
+    const parsed = schema.safeParse({ ...asm, scores, avgDailySteps: asm.avgDailySteps ?? null, adverseEvent: asm.adverseEvent ?? null });
+    if (dateProblems && dateProblems.length > 0 && parsed.success) return;
     if (!parsed.success) {
       for (const issue of parsed.error.issues) {
         const [head, code] = issue.path as string[];
@@ -112,7 +141,8 @@ export class RowCollector {
     const problems = scoreProblems(scores, this.ref);
     for (const p of problems) this.log.add(row, COLUMN_OF_SCORE.get(p.field) ?? null, p.message);
     if (problems.length > 0) return;
-    group.rows.push({
+    this.rowStore ??= new RowStore(header);
+    group.rowIds.push(this.rowStore.add({
       row,
       assessedOn: parsed.data.assessedOn,
       timepoint: parsed.data.timepoint,
@@ -120,24 +150,27 @@ export class RowCollector {
       avgDailySteps: header.has.has('avg_daily_steps') ? (parsed.data.avgDailySteps ?? null) : undefined,
       adverseEvent: header.has.has('adverse_event') ? parsed.data.adverseEvent || null : undefined,
       scores: scoreCells,
-    });
+    }));
   }
 
+  private episodeCells: number[] | undefined;
+  /** The row's episode cells as written, joined into one flat string (a `+=` chain would keep a tree of pieces per episode). */
   private rawEpisodeKey(cells: string[], header: Header): string {
-    let key = '';
-    for (let i = 0; i < header.columns.length; i++) if (header.columns[i]!.level === 'episode') key += `${cells[i]}\u001f`;
-    return key;
+    this.episodeCells ??= header.columns.flatMap((c, i) => (c.level === 'episode' ? [i] : []));
+    const parts = this.episodeCells.map((i) => cells[i]);
+    parts.push(''); // the old key's trailing separator, which convertedKey's split expects
+    return parts.join('\u001f');
   }
 
   /** The episode a row belongs to; every row must repeat the first row's episode columns exactly. */
-  private episodeOf(reference: string, rawKey: string, key: string, epi: Record<string, unknown>, row: number, header: Header): UploadEpisode | null {
+  private episodeOf(reference: string, rawKey: string, key: string, epi: Record<string, unknown>, row: number, header: Header): ReadEpisode | null {
     const known = this.episodes.get(reference);
     if (known) {
       const first = this.convertedKey(known.rawKey, header);
       if (first !== key) this.reportConflict(known, first, key, row, header);
       return first === key && known.fields ? known : null;
     }
-    const group: UploadEpisode = { reference, firstRow: row, rawKey, fields: null, interventions: undefined, rows: [] };
+    const group: ReadEpisode = { reference, firstRow: row, rawKey, fields: null, interventions: undefined, rowIds: [] };
     this.episodes.set(reference, group);
     const { interventions, ...fields } = epi;
     const parsed = UploadEpisodeSchema.safeParse(fields);
@@ -164,7 +197,7 @@ export class RowCollector {
     return parts.join('\u001f');
   }
 
-  private reportConflict(known: UploadEpisode, firstKey: string, key: string, row: number, header: Header): void {
+  private reportConflict(known: ReadEpisode, firstKey: string, key: string, row: number, header: Header): void {
     const a = firstKey.split('\u001f');
     const b = key.split('\u001f');
     header.columns.forEach((col, i) => {

@@ -9,22 +9,15 @@ import { audit, type Tx } from './audit';
 import { assertClinicAccepts } from './clinics.service';
 import { writableClinic } from './episodes-scope';
 import { loadReferenceData } from './reference.service';
-import { UploadSummary } from './uploads-audit';
-import { decodeUpload } from './uploads-decode';
-import { loadStoredEpisodes } from './uploads-existing';
+import type { UploadSummary } from './uploads-audit';
 import { IssueLog, UploadRejected } from './uploads-issues';
-import { parseRows } from './uploads-parse';
-import { planUpload } from './uploads-plan';
-import { RowCollector } from './uploads-validate';
-import { writePlan } from './uploads-write';
+import { checkAndWrite, readUpload } from './uploads-run';
 
 export type UploadFile = { buffer: Buffer; originalname: string };
 export type UploadAnswer = { status: 200 | 422; body: UploadResult & { error?: { message: string } } };
 
 /** Uploads of one clinic never run at the same time (the second waits): each sees the other's rows. */
 const UPLOAD_LOCK = 0x4c4c5550;
-/** Episodes checked (and written) per step: bounds the memory of stored rows and plans for large files. */
-const CHUNK = 4000;
 
 function refused(dryRun: boolean, accepted: number, rejected: number, log: { issues: UploadResult['errors']; truncated: boolean }, message: string): UploadAnswer {
   return {
@@ -48,24 +41,12 @@ export async function uploadEpisodes(db: Db, scope: Scope, file: UploadFile, dry
   const clinicId = writableClinic(scope);
   const log = new IssueLog();
   try {
-    const bytes = decodeUpload(file.buffer);
     const ref = await loadReferenceData(db);
-    const collector = new RowCollector(log, ref);
-    const { header, rows } = parseRows(bytes, log, (cells, row, h) => collector.add(cells, row, h));
-    const groups = [...collector.episodes.values()];
-    collector.episodes.clear();
-    for (const g of groups) g.rawKey = ''; // only needed while reading rows
-
-    /** Checks every episode against what is stored, chunk by chunk; writes each chunk while nothing is wrong. */
+    const read = readUpload(file.buffer, log, ref);
+    const { rows } = read;
+    const ctx = { clinicId, userId: scope.userId, ref, log };
     const run = async (tx: Tx, write: boolean): Promise<UploadSummary> => {
-      const summary = new UploadSummary();
-      while (groups.length > 0) {
-        const chunk = groups.splice(0, CHUNK); // each chunk is garbage once planned (and written)
-        const stored = await loadStoredEpisodes(tx, clinicId, chunk.map((g) => g.reference));
-        const plan = planUpload(chunk, stored, ref, header, log);
-        summary.add(plan);
-        if (write && log.total === 0) await writePlan(tx, clinicId, scope.userId, plan, ref);
-      }
+      const summary = await checkAndWrite(tx, ctx, read, write);
       if (log.total > 0) {
         const rejected = new Set([...log.rejectedRows, ...summary.rejectedRows]).size;
         const message = `${rejected.toLocaleString('en')} of ${rows.toLocaleString('en')} rows have problems; nothing was saved`;
@@ -83,6 +64,9 @@ export async function uploadEpisodes(db: Db, scope: Scope, file: UploadFile, dry
     const fileName = file.originalname.replace(/^.*[\\/]/, '').slice(0, 120) || 'upload.csv';
     return await db.transaction(async (tx) => {
       await tx.execute(sql`select pg_advisory_xact_lock(${UPLOAD_LOCK}::int, ${clinicId}::int)`);
+      // Array parameters hide their length from the planner, whose guesses then make JIT compile each big
+      // statement (most of a second each, longer than the statement's own work).
+      await tx.execute(sql`select set_config('jit', 'off', true)`);
       await assertClinicAccepts(tx, clinicId); // a deactivated clinic accepts nothing new
       const summary = await run(tx, true);
       const [u] = await tx
