@@ -95,7 +95,7 @@ export class RowCollector {
     const asm: Record<string, unknown> = {};
     const scoreCells: Record<string, number | null> = {};
     const keyParts: string[] = [];
-    let bad = false;
+    let bad: Set<string> | null = null; // fields whose cells could not be read
     const columns = header.columns;
     for (let i = 0; i < columns.length; i++) {
       const col = columns[i]!;
@@ -103,12 +103,12 @@ export class RowCollector {
       const cell = readCell(col, cells[i]!);
       if (!cell.ok) {
         this.log.add(row, col.name, cell.message);
-        bad = true;
+        (bad ??= new Set()).add(col.field);
         continue;
       }
       if (cell.value === undefined && col.required) {
         this.log.add(row, col.name, `Enter a value for ${col.name} (a required column)`);
-        bad = true;
+        (bad ??= new Set()).add(col.field);
         continue;
       }
       if (col.level === 'episode') {
@@ -117,40 +117,63 @@ export class RowCollector {
       } else if (col.level === 'assessment') asm[col.field] = cell.value;
       else scoreCells[col.field] = (cell.value as number | undefined) ?? null;
     }
-    if (bad || !reference) return;
+    if (bad) {
+      // The row is refused, but its readable cells are still checked, so one pass reports all of its problems.
+      this.checkAssessment(row, asm, scoreCells, bad);
+      return;
+    }
+    if (!reference) return;
     const group = repeat ? (known.fields ? known : null) : this.episodeOf(reference, rawKey, keyParts.join('\u001f'), epi, row, header);
     if (!group) {
       this.log.rejectedRows.add(row); // its episode's columns are not valid (reported on the episode's first row)
       return;
     }
+    const parsed = this.checkAssessment(row, asm, scoreCells, null);
+    if (!parsed) return;
+    this.rowStore ??= new RowStore(header);
+    group.rowIds.push(this.rowStore.add({
+      row,
+      assessedOn: parsed.assessedOn,
+      timepoint: parsed.timepoint,
+      reporter: header.has.has('reporter') ? parsed.reporter : undefined,
+      avgDailySteps: header.has.has('avg_daily_steps') ? (parsed.avgDailySteps ?? null) : undefined,
+      adverseEvent: header.has.has('adverse_event') ? parsed.adverseEvent || null : undefined,
+      scores: scoreCells,
+    }));
+  }
+
+  /**
+   * The assessment cells of a row against the shared schema and the instruments' ranges; every problem goes to
+   * the log. `unreadable`: fields whose cells were already reported (their follow-on issues are not repeated).
+   * Returns the parsed assessment when the row has no problem at all.
+   */
+  private checkAssessment(
+    row: number,
+    asm: Record<string, unknown>,
+    scoreCells: Record<string, number | null>,
+    unreadable: Set<string> | null,
+  ) {
     const scores: Record<string, number> = {};
     for (const code in scoreCells) if (scoreCells[code] !== null) scores[code] = scoreCells[code]!;
     const dateProblems = typeof asm.assessedOn === 'string' ? dateIssues(asm.assessedOn) : null;
     for (const issue of dateProblems ?? []) this.log.add(row, 'assessed_on', plain(issue));
     const schema = dateProblems ? RowAssessmentSchema : AssessmentInputSchema;
     const parsed = schema.safeParse({ ...asm, scores, avgDailySteps: asm.avgDailySteps ?? null, adverseEvent: asm.adverseEvent ?? null });
-    if (dateProblems && dateProblems.length > 0 && parsed.success) return;
+    let ok = unreadable === null && !(dateProblems && dateProblems.length > 0);
     if (!parsed.success) {
+      ok = false;
       for (const issue of parsed.error.issues) {
         const [head, code] = issue.path as string[];
-        if (head === 'scores' && code === undefined) this.log.add(row, null, 'Enter at least one score (a score_… column)');
-        else this.log.add(row, head === 'scores' ? (COLUMN_OF_SCORE.get(code!) ?? null) : (COLUMN_OF_FIELD.get(head!) ?? null), plain(issue));
+        if (unreadable?.has(head === 'scores' && code !== undefined ? code : head!)) continue;
+        if (head === 'scores' && code === undefined) {
+          if (!unreadable || ![...unreadable].some((f) => COLUMN_OF_SCORE.has(f)))
+            this.log.add(row, null, 'Enter at least one score (a score_… column)');
+        } else this.log.add(row, head === 'scores' ? (COLUMN_OF_SCORE.get(code!) ?? null) : (COLUMN_OF_FIELD.get(head!) ?? null), plain(issue));
       }
-      return;
     }
     const problems = scoreProblems(scores, this.ref);
     for (const p of problems) this.log.add(row, COLUMN_OF_SCORE.get(p.field) ?? null, p.message);
-    if (problems.length > 0) return;
-    this.rowStore ??= new RowStore(header);
-    group.rowIds.push(this.rowStore.add({
-      row,
-      assessedOn: parsed.data.assessedOn,
-      timepoint: parsed.data.timepoint,
-      reporter: header.has.has('reporter') ? parsed.data.reporter : undefined,
-      avgDailySteps: header.has.has('avg_daily_steps') ? (parsed.data.avgDailySteps ?? null) : undefined,
-      adverseEvent: header.has.has('adverse_event') ? parsed.data.adverseEvent || null : undefined,
-      scores: scoreCells,
-    }));
+    return ok && parsed.success && problems.length === 0 ? parsed.data : null;
   }
 
   private episodeCells: number[] | undefined;

@@ -53,6 +53,16 @@ describe('CSV upload: bad input is refused clearly and writes nothing', () => {
     text[2] = `${text[2]},extra`;
     return refuses(text.join('\r\n'), /has 29 cells but the header has 28/, { row: 3 });
   });
+  it('one pass names every problem of a row: unreadable cells and out-of-range scores beside them', async () => {
+    const rows = episodeRows('A-1', 1);
+    Object.assign(rows[1]!, { avg_daily_steps: 'lots', score_nprs_first_step: '14', score_groc: '-9' });
+    const before = await snapshot(ctx.db);
+    const res = await send(csv(rows), '1');
+    expect(res.status).toBe(422);
+    const onRow = (res.body.errors as Issue[]).filter((i) => i.row === 3).map((i) => i.column).sort();
+    expect(onRow).toEqual(['avg_daily_steps', 'score_groc', 'score_nprs_first_step']);
+    expect(await snapshot(ctx.db)).toEqual(before);
+  });
   it('out-of-range scores', () => refuses(csv(episodeRows('S-1', 1, { score_nprs_first_step: '12' })), /\(nprs-first-step\) runs from 0 to 10; 12 is outside/, { row: 2, column: 'score_nprs_first_step' }));
   it('out-of-range GROC (negative numbers are read as numbers)', () => {
     const rows = episodeRows('G-1', 1);
