@@ -20,7 +20,8 @@
  *
  * Targets (from the engine's brief): at n = 10⁶, km+logrank under 1000 ms and
  * under 5× the sort. The script prints one line per case and, at the end,
- * which n = 10⁶ cases miss a target (exit code 1 if the `days` cases miss).
+ * which n = 10⁶ cases miss a target, and a `bench: target met: yes|no` line; it exits 0 either way (a missed
+ * target is a figure, not a failure of the run).
  */
 import { setFlagsFromString } from 'node:v8';
 import { runInNewContext } from 'node:vm';
@@ -109,10 +110,10 @@ for (const days of [true, false]) {
       console.log(`${label}  (${groups} groups, ${days ? 'day-resolution' : 'continuous'} times)`);
       if (n === 1e6 && (analysis >= 1000 || ratio >= 5)) {
         misses.push(`${groups} groups, ${days ? 'days' : 'continuous'}`);
-        if (days) process.exitCode = 1;
       }
     }
   }
 }
 console.log(misses.length === 0 ? 'all n=1e6 cases meet the targets' : `targets missed at n=1e6: ${misses.join('; ')}`);
+console.log(`bench: target met: ${misses.length === 0 ? 'yes' : 'no'} (n=1e6: km+logrank < 1000 ms and < 5 times the sort)`);
 if (sink === -1) console.log(''); // keeps the results observable so no work is optimised away

@@ -44,6 +44,7 @@ const SIZES = opt('--sizes', '2500,100000').split(',').map(Number);
 const RUNS = Number(opt('--runs', '30'));
 const REUSE = args.includes('--reuse');
 const ONLY = opt('--only', '').split(',').filter(Boolean);
+const misses: string[] = [];
 const LEAD = 'lead@demo.loadline.test';
 
 const stats = (ms: number[]) => {
@@ -158,6 +159,8 @@ async function benchSize(n: number): Promise<void> {
       const target = n <= 2500 ? 300 : 1500;
       const verdict = cold.p95 < target ? `ok (p95 < ${target} ms)` : `OVER ${target} ms at p95`;
       const ratio = cold.median / floor.median;
+      if (!(cold.p95 < target)) misses.push(`${c.name} p95 at ${n}`);
+      if (options && ratio > 3) misses.push(`${c.name} ratio at ${n}`);
       console.log(`${c.name.padEnd(10)} cold  median ${fmt(cold.median)}  p95 ${fmt(cold.p95)}  ${verdict}`);
       console.log(`${c.name.padEnd(10)} warm  median ${fmt(warm.median)}  p95 ${fmt(warm.p95)}`);
       console.log(`${c.name.padEnd(10)} floor median ${fmt(floor.median)}  p95 ${fmt(floor.p95)}  (SQL tuples only)`);
@@ -204,6 +207,7 @@ async function entryBundle(): Promise<void> {
 
 async function main(): Promise<void> {
   for (const n of SIZES) await benchSize(n);
+  console.log(`bench: target met: ${misses.length === 0 ? 'yes' : 'no'}${misses.length ? ` (missed: ${misses.join(', ')})` : ''}`);
   await entryBundle();
 }
 

@@ -8,6 +8,9 @@
  *
  * The other benchmarks print their figures (and targets) as text; a line of theirs that carries a number with a
  * unit or a ratio becomes one figure, with the numbers picked out. Not part of `npm test`: speed is measured here.
+ * Every benchmark runs whatever the one before it did: a missed target is a figure (a benchmark's `target met: no`
+ * line becomes `"targetMet": false` on its wall-time line), and only a benchmark that could not run (non-zero exit)
+ * makes the whole run exit 1, after all of them.
  *   npm run bench [-- --only bench:upload,first-chart]
  */
 import { spawn } from 'node:child_process';
@@ -23,7 +26,9 @@ const emit = (line: Record<string, unknown>) => process.stdout.write(`${JSON.str
 
 /** Numbers with their units in one line of a benchmark's report. */
 export function valuesIn(line: string): { value: number; unit: string }[] {
-  return [...line.matchAll(UNIT)].map((m) => (m[3] ? { value: Number(m[3]), unit: 'ratio' } : { value: Number(m[1]!.replace(/,/g, '')), unit: m[2]! }));
+  return [...line.matchAll(UNIT)].map((m) =>
+    m[3] ? { value: Number(m[3]), unit: 'ratio' } : { value: Number(m[1]!.replace(/,/g, '')), unit: m[2]! },
+  );
 }
 
 /** Runs one npm script, relaying its output to stderr; resolves with its lines and exit code. */
@@ -38,14 +43,23 @@ function runScript(name: string): Promise<{ lines: string[]; code: number; secon
     };
     child.stdout.on('data', relay);
     child.stderr.on('data', relay);
-    child.on('close', (code) => resolve({ lines: text.split('\n'), code: code ?? 1, seconds: (performance.now() - started) / 1000 }));
+    const done = (code: number) =>
+      resolve({ lines: text.split('\n'), code, seconds: (performance.now() - started) / 1000 });
+    // A script that cannot even start is one failed benchmark, not the end of the run.
+    child.on('error', (e) => {
+      text += `\nbench: could not start ${name}: ${e.message}`;
+      done(1);
+    });
+    child.on('close', (code) => done(code ?? 1));
   });
 }
 
 async function main(): Promise<void> {
   const at = process.argv.indexOf('--only');
   const only = at === -1 ? null : new Set(process.argv[at + 1]!.split(','));
-  const scripts = (JSON.parse(readFileSync(path.join(checkoutRoot, 'package.json'), 'utf8')) as { scripts: Record<string, string> }).scripts;
+  const scripts = (
+    JSON.parse(readFileSync(path.join(checkoutRoot, 'package.json'), 'utf8')) as { scripts: Record<string, string> }
+  ).scripts;
   let failed = 0;
   for (const name of BENCHMARKS) {
     if (only && !only.has(name)) continue;
@@ -60,7 +74,16 @@ async function main(): Promise<void> {
       const values = valuesIn(line);
       if (values.length > 0) emit({ benchmark: name, figure: line, values });
     }
-    emit({ benchmark: name, figure: 'wall time', value: Number(r.seconds.toFixed(1)), unit: 's', exitCode: r.code });
+    const verdicts = r.lines.map((l) => /target met: (yes|no)/.exec(l)?.[1]).filter((v) => v !== undefined);
+    const targetMet = verdicts.length > 0 ? verdicts.every((v) => v === 'yes') : undefined;
+    emit({
+      benchmark: name,
+      figure: 'wall time',
+      value: Number(r.seconds.toFixed(1)),
+      unit: 's',
+      exitCode: r.code,
+      targetMet,
+    });
     if (r.code !== 0) failed++;
   }
   if (!only || only.has('first-chart')) {

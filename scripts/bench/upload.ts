@@ -38,6 +38,7 @@ const argRows = process.argv.indexOf('--rows');
 const ROWS = argRows === -1 ? 100_000 : Number(process.argv[argRows + 1]);
 
 let peakRss = 0;
+let commitRate = 0;
 let phasePeak = 0;
 const sampler = setInterval(() => {
   const rss = process.memoryUsage().rss;
@@ -70,6 +71,7 @@ async function main(): Promise<void> {
       const nodeCpu = (used.user + used.system) / 1e6;
       if (answer.status !== 200) throw new Error(`${label}: ${answer.status} ${JSON.stringify(answer.body.errors.slice(0, 3))}`);
       const c = answer.body.changes!;
+      if (label === 'commit') commitRate = ROWS / seconds;
       console.log(
         `${label.padEnd(22)} ${seconds.toFixed(2)} s  ${Math.round(ROWS / seconds).toLocaleString('en').padStart(7)} rows/s  ` +
           `(episodes +${c.episodesCreated} ~${c.episodesUpdated}, assessments +${c.assessmentsCreated} ~${c.assessmentsUpdated}, unchanged rows ${c.rowsUnchanged}), Node CPU ${nodeCpu.toFixed(1)} s, peak RSS ${mb(phasePeak)}`,
@@ -83,6 +85,8 @@ async function main(): Promise<void> {
   const maxRss = process.resourceUsage().maxRSS * 1024;
   console.log(`peak RSS: ${mb(Math.max(peakRss, maxRss))} (resourceUsage maxRSS ${mb(maxRss)}, sampled ${mb(peakRss)})`);
   console.log(`targets: ≥ 20,000 rows/s committed; peak RSS < 300 MB. Machine load when measured: ${(await import('node:os')).loadavg()[0]!.toFixed(1)} (1-min average)`);
+  const met = commitRate >= 20_000 && Math.max(peakRss, maxRss) < 300 * 1024 * 1024;
+  console.log(`bench: target met: ${met ? 'yes' : 'no'} (commit ${Math.round(commitRate).toLocaleString('en')} rows/s, peak RSS ${mb(Math.max(peakRss, maxRss))})`);
 }
 
 main().catch((e: unknown) => {

@@ -4,7 +4,9 @@ import type { StartGranularity } from '../../../shared/export-columns';
 export type Qi = { ageBand: string; sex: string; bmiBand: string; activity: string; period: string; region: string };
 
 const SEP = '\u001f';
-export const qiKey = (q: Qi) => [q.ageBand, q.sex, q.bmiBand, q.activity, q.period, q.region].join(SEP);
+/** One string per combination (made for every row of both passes, so a plain concatenation, no array). */
+export const qiKey = (q: Qi) =>
+  `${q.ageBand}${SEP}${q.sex}${SEP}${q.bmiBand}${SEP}${q.activity}${SEP}${q.period}${SEP}${q.region}`;
 
 /** A 5-year band label ('40-44', '90+') widened to `width` years; the top code stays a top code. */
 export function widenAgeBand(band: string, width: 10 | 20): string {

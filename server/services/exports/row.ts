@@ -1,7 +1,7 @@
 import { randomBytes, randomUUID } from 'node:crypto';
-import type { EpisodeField, ExportColumn, InstrumentPart, StartGranularity } from '../../../shared/export-columns';
+import type { EpisodeField, InstrumentPart, StartGranularity } from '../../../shared/export-columns';
 import type { EpisodeFacts, InstrumentFacts } from '../cohorts/derive';
-import { cell, tidy, type Cell } from './csv-cell';
+import { tidy } from './csv-cell';
 import { startPeriod, type Qi } from './generalise';
 
 /** The ungeneralised quasi-identifiers of one episode (bands from the outcomes engine, the period from the date). */
@@ -32,10 +32,20 @@ export function clinicCoder(): (clinicId: number) => string {
   };
 }
 
-type Value = string | number | boolean | null;
-type Getter = (f: EpisodeFacts, q: Qi) => Value;
+export type Value = string | number | boolean | null;
+export type Getter = (f: EpisodeFacts, q: Qi) => Value;
 
-function fieldGetter(field: EpisodeField, clinicCode: (id: number) => string): Getter {
+/** Fields read from the exported quasi-identifiers alone (the same for every row of a combination). */
+export const QI_FIELDS: ReadonlySet<EpisodeField> = new Set<EpisodeField>([
+  'clinic_region',
+  'start_period',
+  'age_band',
+  'sex',
+  'bmi_band',
+  'activity_profile',
+]);
+
+export function fieldGetter(field: EpisodeField, clinicCode: (id: number) => string): Getter {
   const getters: Record<EpisodeField, Getter> = {
     // A fresh random id per row and export: never derived from the pseudonym, so exports cannot be linked.
     study_id: () => randomUUID(),
@@ -62,26 +72,10 @@ function fieldGetter(field: EpisodeField, clinicCode: (id: number) => string): G
   return getters[field];
 }
 
-const PART: Record<InstrumentPart, (i: InstrumentFacts) => Value> = {
+export const PART: Record<InstrumentPart, (i: InstrumentFacts) => Value> = {
   baseline: (i) => i.baseline,
   followup: (i) => i.followUp,
   followup_day: (i) => i.followUpDay,
   change: (i) => (i.change === null ? null : tidy(i.change)),
   responder: (i) => i.responder,
 };
-
-/** Compiles the columns into one function from an episode (and its exported quasi-identifiers) to a CSV record. */
-export function recordBuilder(columns: readonly ExportColumn[], clinicCode: (id: number) => string) {
-  const getters: Getter[] = columns.map((c): Getter => {
-    const s = c.source;
-    if (s.kind === 'field') return fieldGetter(s.field, clinicCode);
-    if (s.kind === 'intervention') return (f) => f.interventionCodes.has(s.code);
-    const part = PART[s.part];
-    return (f) => {
-      const i = f.byInstrument.get(s.code);
-      return i ? part(i) : null;
-    };
-  });
-  const types = columns.map((c) => c.type);
-  return (f: EpisodeFacts, q: Qi): Cell[] => getters.map((g, i) => cell(types[i]!, g(f, q)));
-}

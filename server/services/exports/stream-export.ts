@@ -1,22 +1,24 @@
 import { createHash } from 'node:crypto';
 import { Readable, Transform, type Writable } from 'node:stream';
 import { pipeline } from 'node:stream/promises';
-import { stringify } from 'csv-stringify/sync';
 import type { ExportStatus } from '../../../shared/export-columns';
 import type { Db } from '../../db/client';
 import type { Scope } from '../../db/scope';
 import { exportLog } from '../../db/schema';
 import { audit } from '../audit';
 import { currentRules } from '../rules.service';
-import { criteriaSteps, firstFailure, needsScores } from '../cohorts/criteria';
-import { deriveContext } from '../cohorts/derive';
+import { criteriaSteps, needsScores } from '../cohorts/criteria';
+import { deriveContext, deriveFacts } from '../cohorts/derive';
 import { loadReference } from '../cohorts/reference';
-import { scanFacts, withSnapshot } from '../cohorts/scan';
+import { withSnapshot } from '../cohorts/scan';
 import { authoriseDownload, type DownloadGrant } from './data-requests.service';
 import { columnsFor, groupsNeedScores } from './columns';
-import { generalise, planGeneralisation, qiKey, type Plan, type Qi } from './generalise';
-import { clinicCoder, qiOf, recordBuilder } from './row';
-import type { Cell } from './csv-cell';
+import { headerLine } from './csv-cell';
+import { countCohort, verdictOf } from './export-plan';
+import { scanExportRows } from './export-scan';
+import type { Plan } from './generalise';
+import { lineBuilder } from './csv-line';
+import { clinicCoder } from './row';
 
 export type ExportMeta = {
   exportName: string;
@@ -36,8 +38,8 @@ type Progress = {
   recorded: boolean;
 };
 
-/** Rows per csv-stringify call (and per chunk written to the response). */
-const CHUNK_ROWS = 128;
+/** Rows per chunk written to the response (about 100 kB): few enough writes, little alive at any moment. */
+const CHUNK_ROWS = 512;
 
 const ABORT_CODES = new Set(['ERR_STREAM_PREMATURE_CLOSE', 'ECONNRESET', 'EPIPE', 'ERR_STREAM_DESTROYED']);
 
@@ -83,11 +85,12 @@ async function record(db: Db, grant: DownloadGrant, p: Progress, status: ExportS
 
 /**
  * Streams the de-identified CSV of an approved request into `sink.out` in two passes over one snapshot:
- * pass 1 counts the quasi-identifier combinations of the cohort (one number per combination) and plans the
- * k-anonymity generalisation; pass 2 streams the rows from a cursor through csv-stringify (one call per chunk of
- * rows) and a hashing tap into the response with stream.pipeline (backpressure from the socket back to the cursor).
- * The audit event (rows, SHA-256 of the bytes sent) is written before the response ends; an abandoned download
- * is audited as aborted.
+ * pass 1 counts the quasi-identifier combinations of the cohort (one number per combination; it reads scores
+ * and interventions only when the criteria need them) and plans the k-anonymity generalisation; pass 2 streams
+ * the rows from a cursor, each formatted into its CSV line by formatters compiled once per export (text encoded
+ * by csv-stringify once per distinct value), through a hashing tap into the response with stream.pipeline
+ * (backpressure from the socket back to the cursor). The audit event (rows, SHA-256 of the bytes sent) is
+ * written before the response ends; an abandoned download is audited as aborted.
  */
 export async function streamExport(
   db: Db,
@@ -101,6 +104,7 @@ export async function streamExport(
   const columns = columnsFor(ref, rules, grant);
   const steps = criteriaSteps(grant.criteria);
   const ctx = deriveContext(ref, rules);
+  const granularity = grant.startGranularity;
   const p: Progress = {
     rows: 0,
     bytes: 0,
@@ -109,20 +113,15 @@ export async function streamExport(
     startedAt: new Date(),
     recorded: false,
   };
+  const countNeeds = { scores: needsScores(grant.criteria), interventions: grant.criteria.addOns !== null };
+  const fileNeeds = {
+    scores: countNeeds.scores || groupsNeedScores(grant.variableGroups),
+    interventions: countNeeds.interventions || columns.some((c) => c.source.kind === 'intervention'),
+  };
   try {
     await withSnapshot(db, async (client) => {
-      const counts = new Map<string, { qi: Qi; n: number }>();
-      for await (const batch of scanFacts(client, ctx, { scores: needsScores(grant.criteria) })) {
-        for (const f of batch) {
-          if (firstFailure(steps, f) >= 0) continue;
-          const qi = qiOf(f, grant.startGranularity);
-          const key = qiKey(qi);
-          const c = counts.get(key);
-          if (c) c.n++;
-          else counts.set(key, { qi, n: 1 });
-        }
-      }
-      const plan = planGeneralisation(counts, grant.k);
+      const verdict = await countCohort(client, ctx, { steps, granularity, needs: countNeeds, k: grant.k });
+      const plan = verdict.plan;
       p.plan = plan;
       sink.begin({
         exportName: `loadline-request-${grant.requestId}`,
@@ -132,33 +131,29 @@ export async function streamExport(
         k: grant.k,
       });
 
-      const build = recordBuilder(columns, clinicCoder());
-      const names = columns.map((c) => c.name);
-      const scores = needsScores(grant.criteria) || groupsNeedScores(grant.variableGroups);
-      // One csv-stringify call per chunk of rows; the generator is only resumed when the response has room,
-      // so pipeline backpressure reaches back to the cursor.
+      const line = lineBuilder(columns, clinicCoder());
+      const header = `${headerLine(columns.map((c) => c.name))}\n`;
+      // One string per chunk of rows; the generator is only resumed when the response has room, so pipeline
+      // backpressure reaches back to the cursor.
       async function* csvChunks() {
-        let header = true;
-        let records: Cell[][] = [];
-        const chunk = () => {
-          const text = stringify(records, { header, columns: names });
-          p.rows += records.length;
-          records = [];
-          header = false;
-          return text;
-        };
-        for await (const batch of scanFacts(client, ctx, { scores })) {
-          for (const f of batch) {
-            if (firstFailure(steps, f) >= 0) continue;
-            const qi = qiOf(f, grant.startGranularity);
-            const level = plan.decision.get(qiKey(qi));
-            if (level === undefined || level === 'suppress') continue;
-            records.push(build(f, generalise(qi, level)));
-            // Small chunks keep what is alive at any moment small, so memory stays flat.
-            if (records.length === CHUNK_ROWS) yield chunk();
+        let text = header;
+        let rows = 0;
+        let ordinal = 0;
+        for await (const batch of scanExportRows(client, fileNeeds)) {
+          for (const row of batch) {
+            const q = verdictOf(verdict, ordinal++, row.id);
+            if (!q) continue; // outside the cohort, or suppressed
+            text += `${line(deriveFacts(row, ctx), q)}\n`;
+            if (++rows === CHUNK_ROWS) {
+              p.rows += rows;
+              yield text;
+              text = '';
+              rows = 0;
+            }
           }
         }
-        if (records.length > 0 || header) yield chunk();
+        p.rows += rows;
+        if (text.length > 0) yield text;
       }
       const tap = new Transform({
         transform(chunk: Buffer, _enc, done) {
