@@ -140,6 +140,19 @@ export function deriveFacts(row: FactsRow, ctx: DeriveContext): EpisodeFacts {
       : baselines[r] == null
         ? followUps[r]!
         : [{ weeks: 0, value: baselines[r]! }, ...followUps[r]!];
+  return {
+    ...episodeFields(row, ctx),
+    byInstrument,
+    recovery: recoveryObservation(recoverySeries, ctx.recoveryRule),
+    assessmentCount: assessmentIds.length,
+  };
+}
+
+/** The facts of an episode that need none of its scores: its own fields, its bands and its intervention codes. */
+export function episodeFields(
+  row: FactsRow,
+  ctx: DeriveContext,
+): Omit<EpisodeFacts, 'byInstrument' | 'recovery' | 'assessmentCount'> {
   const codes = new Set<string>();
   for (const id of row.interventions ?? []) {
     const c = ctx.ref.interventionById.get(id);
@@ -164,9 +177,6 @@ export function deriveFacts(row: FactsRow, ctx: DeriveContext): EpisodeFacts {
     bmi: value,
     bmiBand: bmiBand(value),
     durationBand: symptomDurationBand(row.symptom_weeks),
-    byInstrument,
-    recovery: recoveryObservation(recoverySeries, ctx.recoveryRule),
     interventionCodes: codes,
-    assessmentCount: assessmentIds.length,
   };
 }
