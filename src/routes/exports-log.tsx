@@ -4,6 +4,7 @@ import { Loading } from '../components/loading';
 import { savedWhen } from '../features/cohorts/format';
 import { useExportsLog } from '../features/data-requests/api/list-exports';
 import { EXPORT_STATUS_LABELS } from '../features/data-requests/labels';
+import { TableFrame } from '../components/table-frame';
 
 /** The steward's log of every research export: who, which request, how many rows, the file's SHA-256. */
 export function Component() {
@@ -24,57 +25,39 @@ export function Component() {
       ) : log.data.items.length === 0 ? (
         <EmptyState title="No export yet">Exports appear here as researchers download approved requests.</EmptyState>
       ) : (
-        <div className="relative overflow-x-auto rounded border border-line bg-surface">
-          <table className="tabular w-full text-left text-sm">
-            <caption className="sr-only">Research exports, newest first</caption>
-            <thead className="border-b border-line bg-canvas text-xs text-ink-soft">
-              <tr>
-                <th scope="col" className="px-3 py-2 font-medium">
-                  When
-                </th>
-                <th scope="col" className="px-3 py-2 font-medium">
-                  Researcher
-                </th>
-                <th scope="col" className="px-3 py-2 font-medium">
-                  Request
-                </th>
-                <th scope="col" className="px-3 py-2 font-medium">
-                  Outcome
-                </th>
-                <th scope="col" className="px-3 py-2 text-right font-medium">
-                  Rows
-                </th>
-                <th scope="col" className="px-3 py-2 text-right font-medium">
-                  Generalised / left out (k)
-                </th>
-                <th scope="col" className="px-3 py-2 font-medium">
-                  SHA-256
-                </th>
-              </tr>
-            </thead>
-            <tbody>
-              {log.data.items.map((e) => (
-                <tr key={e.id} className="border-b border-line last:border-0">
-                  <td className="px-3 py-2 whitespace-nowrap">{savedWhen(e.finishedAt)}</td>
-                  <td className="px-3 py-2">{e.user.name || e.user.email}</td>
-                  <td className="px-3 py-2">
-                    #{e.requestId} · {e.cohortName}
-                  </td>
-                  <td className={`px-3 py-2 ${e.status === 'completed' ? '' : 'text-caution'}`}>
-                    {EXPORT_STATUS_LABELS[e.status]}
-                  </td>
-                  <td className="px-3 py-2 text-right">{e.rowCount}</td>
-                  <td className="px-3 py-2 text-right">
-                    {e.generalisedRows} / {e.suppressedRows} ({e.k})
-                  </td>
-                  <td className="px-3 py-2 font-mono text-xs" title={e.sha256}>
-                    {e.sha256.slice(0, 16)}…
-                  </td>
-                </tr>
-              ))}
-            </tbody>
-          </table>
-        </div>
+        <TableFrame
+          caption="Research exports, newest first"
+          cell="px-3 py-2"
+          columns={[
+            'When',
+            'Researcher',
+            'Request',
+            'Outcome',
+            { label: 'Rows', numeric: true },
+            { label: 'Generalised / left out (k)', numeric: true },
+            'SHA-256',
+          ]}
+        >
+          {log.data.items.map((e) => (
+            <tr key={e.id} className="border-b border-line last:border-0">
+              <td className="px-3 py-2 whitespace-nowrap">{savedWhen(e.finishedAt)}</td>
+              <td className="px-3 py-2">{e.user.name || e.user.email}</td>
+              <td className="px-3 py-2">
+                #{e.requestId} · {e.cohortName}
+              </td>
+              <td className={`px-3 py-2 ${e.status === 'completed' ? '' : 'text-caution'}`}>
+                {EXPORT_STATUS_LABELS[e.status]}
+              </td>
+              <td className="px-3 py-2 text-right">{e.rowCount}</td>
+              <td className="px-3 py-2 text-right">
+                {e.generalisedRows} / {e.suppressedRows} ({e.k})
+              </td>
+              <td className="px-3 py-2 font-mono text-xs" title={e.sha256}>
+                {e.sha256.slice(0, 16)}…
+              </td>
+            </tr>
+          ))}
+        </TableFrame>
       )}
     </section>
   );

@@ -1,5 +1,6 @@
 import type { OutcomeSummary } from '../../../shared/schemas/cohort';
 import { countShort, dec1, DASH, pct } from './format';
+import { TableFrame } from '../../components/table-frame';
 
 /** The cohort's outcomes from the outcomes engine: change per instrument, responders, time to recovery. */
 export function OutcomeSummaryView({ summary }: { summary: OutcomeSummary }) {
@@ -10,55 +11,41 @@ export function OutcomeSummaryView({ summary }: { summary: OutcomeSummary }) {
       {shown.length === 0 ? (
         <p className="text-sm text-ink-soft">No episode in this cohort has a baseline and a primary follow-up yet.</p>
       ) : (
-        <div className="relative overflow-x-auto rounded border border-line bg-surface">
-          <table className="tabular w-full text-left text-sm">
-            <caption className="sr-only">Change from baseline to the primary follow-up</caption>
-            <thead className="border-b border-line bg-canvas text-xs text-ink-soft">
-              <tr>
-                <th scope="col" className="px-3 py-2 font-medium">
-                  Instrument
-                </th>
-                <th scope="col" className="px-3 py-2 text-right font-medium">
-                  Paired
-                </th>
-                <th scope="col" className="px-3 py-2 text-right font-medium">
-                  Mean change (95% CI)
-                </th>
-                <th scope="col" className="px-3 py-2 text-right font-medium">
-                  Median (IQR)
-                </th>
-                <th scope="col" className="px-3 py-2 text-right font-medium">
-                  Improved by the MCID (95% CI)
-                </th>
-              </tr>
-            </thead>
-            <tbody>
-              {shown.map((i) => (
-                <tr key={i.code} className="border-b border-line last:border-0">
-                  <th scope="row" className="px-3 py-2 font-normal">
-                    {i.label}
-                  </th>
-                  <td className="px-3 py-2 text-right">{countShort(i.nPaired)}</td>
-                  <td className="px-3 py-2 text-right">
-                    {i.change
-                      ? `${dec1(i.change.mean)} (${dec1(i.change.lower)} to ${dec1(i.change.upper)})`
-                      : `too few (under ${summary.minEstimate})`}
-                  </td>
-                  <td className="px-3 py-2 text-right">
-                    {i.change ? `${dec1(i.change.median)} (${dec1(i.change.q1)}–${dec1(i.change.q3)})` : DASH}
-                  </td>
-                  <td className="px-3 py-2 text-right">
-                    {i.mcid === null
-                      ? 'no MCID'
-                      : i.responders
-                        ? `${pct(i.responders.share.estimate)} (${pct(i.responders.share.lower)}–${pct(i.responders.share.upper)})`
-                        : 'hidden (small count)'}
-                  </td>
-                </tr>
-              ))}
-            </tbody>
-          </table>
-        </div>
+        <TableFrame
+          caption="Change from baseline to the primary follow-up"
+          cell="px-3 py-2"
+          columns={[
+            'Instrument',
+            { label: 'Paired', numeric: true },
+            { label: 'Mean change (95% CI)', numeric: true },
+            { label: 'Median (IQR)', numeric: true },
+            { label: 'Improved by the MCID (95% CI)', numeric: true },
+          ]}
+        >
+          {shown.map((i) => (
+            <tr key={i.code} className="border-b border-line last:border-0">
+              <th scope="row" className="px-3 py-2 font-normal">
+                {i.label}
+              </th>
+              <td className="px-3 py-2 text-right">{countShort(i.nPaired)}</td>
+              <td className="px-3 py-2 text-right">
+                {i.change
+                  ? `${dec1(i.change.mean)} (${dec1(i.change.lower)} to ${dec1(i.change.upper)})`
+                  : `too few (under ${summary.minEstimate})`}
+              </td>
+              <td className="px-3 py-2 text-right">
+                {i.change ? `${dec1(i.change.median)} (${dec1(i.change.q1)}–${dec1(i.change.q3)})` : DASH}
+              </td>
+              <td className="px-3 py-2 text-right">
+                {i.mcid === null
+                  ? 'no MCID'
+                  : i.responders
+                    ? `${pct(i.responders.share.estimate)} (${pct(i.responders.share.lower)}–${pct(i.responders.share.upper)})`
+                    : 'hidden (small count)'}
+              </td>
+            </tr>
+          ))}
+        </TableFrame>
       )}
       <p className="text-xs text-ink-faint">
         A positive change means improvement on every instrument. Estimates need at least {summary.minEstimate} episodes;

@@ -5,8 +5,8 @@ import { inputClass } from '../../../components/form-field';
 import { useChangeCode } from '../api/change-code';
 import { linkButton, quietButton } from '../components/buttons';
 import { CODE_STATUS_WORDS, KIND_WORDS } from './code-words';
+import { TableFrame } from '../../../components/table-frame';
 
-const th = 'px-4 py-2 font-medium';
 const td = 'px-4 py-2.5 align-top';
 
 /** One code's steward actions: relabel, switch grading while unused, decide a proposal. */
@@ -80,63 +80,43 @@ function CodeActions({ c }: { c: InterventionCode }) {
 /** Intervention codes; `actions` off for a lead's read-only list of proposals. */
 export function CodesTable({ codes, actions }: { codes: InterventionCode[]; actions: boolean }) {
   return (
-    <div className="relative overflow-x-auto rounded border border-line bg-surface">
-      <table className="tabular w-full text-left text-sm">
-        <caption className="sr-only">Intervention codes</caption>
-        <thead className="border-b border-line bg-canvas text-xs text-ink-soft">
-          <tr>
-            <th scope="col" className={th}>
-              Code
-            </th>
-            <th scope="col" className={th}>
-              Kind
-            </th>
-            <th scope="col" className={th}>
-              Levels
-            </th>
-            <th scope="col" className={th}>
-              State
-            </th>
-            <th scope="col" className={th}>
-              Proposed by
-            </th>
-            <th scope="col" className={th}>
-              Episodes
-            </th>
-            {actions ? (
-              <th scope="col" className={th}>
-                <span className="sr-only">Actions</span>
-              </th>
-            ) : null}
-          </tr>
-        </thead>
-        <tbody>
-          {codes.map((c) => (
-            <tr key={c.id} className="border-b border-line last:border-0">
-              <td className={td}>
-                <span className="font-medium">{c.label}</span>
-                <span className="block text-xs text-ink-soft">{c.code}</span>
-              </td>
-              <td className={td}>{KIND_WORDS[c.kind]}</td>
-              <td className={td}>{c.graded ? '1–3' : '—'}</td>
-              <td className={td}>
-                <span
-                  className={c.status === 'proposed' ? 'text-caution' : c.status === 'declined' ? 'text-ink-faint' : ''}
-                >
-                  {CODE_STATUS_WORDS[c.status]}
-                </span>
-              </td>
-              <td className={td}>{c.proposedByClinicCode ?? 'Registry'}</td>
-              <td className={td}>{c.useCount}</td>
-              {actions ? (
-                <td className={td}>
-                  <CodeActions c={c} />
-                </td>
-              ) : null}
-            </tr>
-          ))}
-        </tbody>
-      </table>
-    </div>
+    <TableFrame
+      caption="Intervention codes"
+      cell="px-4 py-2"
+      columns={[
+        'Code',
+        'Kind',
+        'Levels',
+        'State',
+        'Proposed by',
+        'Episodes',
+        ...(actions ? [{ label: 'Actions', hidden: true }] : []),
+      ]}
+    >
+      {codes.map((c) => (
+        <tr key={c.id} className="border-b border-line last:border-0">
+          <td className={td}>
+            <span className="font-medium">{c.label}</span>
+            <span className="block text-xs text-ink-soft">{c.code}</span>
+          </td>
+          <td className={td}>{KIND_WORDS[c.kind]}</td>
+          <td className={td}>{c.graded ? '1–3' : '—'}</td>
+          <td className={td}>
+            <span
+              className={c.status === 'proposed' ? 'text-caution' : c.status === 'declined' ? 'text-ink-faint' : ''}
+            >
+              {CODE_STATUS_WORDS[c.status]}
+            </span>
+          </td>
+          <td className={td}>{c.proposedByClinicCode ?? 'Registry'}</td>
+          <td className={td}>{c.useCount}</td>
+          {actions ? (
+            <td className={td}>
+              <CodeActions c={c} />
+            </td>
+          ) : null}
+        </tr>
+      ))}
+    </TableFrame>
   );
 }

@@ -6,8 +6,8 @@ import { linkButton } from '../components/buttons';
 import { ConfirmButton } from '../components/confirm-button';
 import { formatRange } from '../format';
 import { InstrumentEditor } from './instrument-editor';
+import { TableFrame } from '../../../components/table-frame';
 
-const th = 'px-4 py-2 font-medium';
 const td = 'px-4 py-2.5 align-top';
 
 function RowActions({ i, onEdit }: { i: Instrument; onEdit: () => void }) {
@@ -53,77 +53,59 @@ function RowActions({ i, onEdit }: { i: Instrument; onEdit: () => void }) {
 export function InstrumentsTable({ instruments }: { instruments: Instrument[] }) {
   const [editing, setEditing] = useState<number | null>(null);
   return (
-    <div className="relative overflow-x-auto rounded border border-line bg-surface">
-      <table className="tabular w-full text-left text-sm">
-        <caption className="sr-only">Outcome measures</caption>
-        <thead className="border-b border-line bg-canvas text-xs text-ink-soft">
-          <tr>
-            <th scope="col" className={th}>
-              Instrument
-            </th>
-            <th scope="col" className={th}>
-              Range
-            </th>
-            <th scope="col" className={th}>
-              Better is
-            </th>
-            <th scope="col" className={th}>
-              MCID and source
-            </th>
-            <th scope="col" className={th}>
-              Region
-            </th>
-            <th scope="col" className={th}>
-              Stored scores
-            </th>
-            <th scope="col" className={th}>
-              <span className="sr-only">Actions</span>
-            </th>
-          </tr>
-        </thead>
-        <tbody>
-          {instruments.map((i) => (
-            <Fragment key={i.id}>
-              <tr className={`border-b border-line last:border-0 ${i.retired ? 'text-ink-faint' : ''}`}>
-                <td className={td}>
-                  <span className="font-medium">{i.label}</span>
-                  <span className="block text-xs text-ink-soft">
-                    {i.code}
-                    {i.retired ? ' · retired' : ''}
-                  </span>
-                </td>
-                <td className={td}>
-                  {formatRange(i.min, i.max)} {i.unit}
-                </td>
-                <td className={td}>{i.higherIsBetter ? 'higher' : 'lower'}</td>
-                <td className={`${td} max-w-sm`}>
-                  <span className="font-medium">{i.mcid ?? 'none'}</span>
-                  <span className="block text-xs text-ink-soft">{i.mcidSource}</span>
-                </td>
-                <td className={td}>{i.bodyRegion}</td>
-                <td className={td}>
-                  {i.scoreCount}
-                  {i.storedMin !== null ? (
-                    <span className="block text-xs text-ink-faint">
-                      {formatRange(i.storedMin, i.storedMax ?? i.storedMin)}
-                    </span>
-                  ) : null}
-                </td>
-                <td className={td}>
-                  <RowActions i={i} onEdit={() => setEditing(editing === i.id ? null : i.id)} />
-                </td>
-              </tr>
-              {editing === i.id ? (
-                <tr className="border-b border-line">
-                  <td colSpan={7} className="px-4 py-3">
-                    <InstrumentEditor instrument={i} onDone={() => setEditing(null)} />
-                  </td>
-                </tr>
+    <TableFrame
+      caption="Outcome measures"
+      cell="px-4 py-2"
+      columns={[
+        'Instrument',
+        'Range',
+        'Better is',
+        'MCID and source',
+        'Region',
+        'Stored scores',
+        '<span className="sr-only">Actions</span>',
+      ]}
+    >
+      {instruments.map((i) => (
+        <Fragment key={i.id}>
+          <tr className={`border-b border-line last:border-0 ${i.retired ? 'text-ink-faint' : ''}`}>
+            <td className={td}>
+              <span className="font-medium">{i.label}</span>
+              <span className="block text-xs text-ink-soft">
+                {i.code}
+                {i.retired ? ' · retired' : ''}
+              </span>
+            </td>
+            <td className={td}>
+              {formatRange(i.min, i.max)} {i.unit}
+            </td>
+            <td className={td}>{i.higherIsBetter ? 'higher' : 'lower'}</td>
+            <td className={`${td} max-w-sm`}>
+              <span className="font-medium">{i.mcid ?? 'none'}</span>
+              <span className="block text-xs text-ink-soft">{i.mcidSource}</span>
+            </td>
+            <td className={td}>{i.bodyRegion}</td>
+            <td className={td}>
+              {i.scoreCount}
+              {i.storedMin !== null ? (
+                <span className="block text-xs text-ink-faint">
+                  {formatRange(i.storedMin, i.storedMax ?? i.storedMin)}
+                </span>
               ) : null}
-            </Fragment>
-          ))}
-        </tbody>
-      </table>
-    </div>
+            </td>
+            <td className={td}>
+              <RowActions i={i} onEdit={() => setEditing(editing === i.id ? null : i.id)} />
+            </td>
+          </tr>
+          {editing === i.id ? (
+            <tr className="border-b border-line">
+              <td colSpan={7} className="px-4 py-3">
+                <InstrumentEditor instrument={i} onDone={() => setEditing(null)} />
+              </td>
+            </tr>
+          ) : null}
+        </Fragment>
+      ))}
+    </TableFrame>
   );
 }

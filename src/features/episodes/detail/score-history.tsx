@@ -4,6 +4,7 @@ import { Sparkline } from '../../../components/sparkline';
 import { baselineOf, changeFromBaseline, weeksOf } from '../change';
 import { formatChange, formatDate, formatNumber } from '../format';
 import { REPORTER_LABELS, TIMEPOINT_LABELS } from '../labels';
+import { TableFrame } from '../../../components/table-frame';
 
 type Props = { episode: EpisodeDetail; instruments: InstrumentInfo[] };
 
@@ -56,55 +57,36 @@ export function ScoreHistory({ episode, instruments }: Props) {
           ))}
         </ul>
       ) : null}
-      <div className="relative overflow-x-auto rounded border border-line bg-surface">
-        <table className="tabular w-full text-left text-sm">
-          <caption className="sr-only">Assessments and scores of this episode</caption>
-          <thead className="border-b border-line bg-canvas text-xs text-ink-soft">
-            <tr>
-              <th scope="col" className="px-4 py-2 font-medium">
-                Assessment
-              </th>
-              <th scope="col" className="px-4 py-2 font-medium">
-                Date
-              </th>
-              {used.map((i) => (
-                <th key={i.code} scope="col" className="px-4 py-2 font-medium">
-                  {i.label}
-                </th>
-              ))}
-              <th scope="col" className="px-4 py-2 font-medium">
-                Daily steps
-              </th>
-            </tr>
-          </thead>
-          <tbody>
-            {rows.map((a) => (
-              <tr key={a.id} className="border-b border-line last:border-0">
-                <th scope="row" className="px-4 py-2.5 text-left align-top font-medium">
-                  {TIMEPOINT_LABELS[a.timepoint]}
-                  <span className="block text-xs font-normal text-ink-faint">{REPORTER_LABELS[a.reporter]}</span>
-                </th>
-                <td className="px-4 py-2.5 align-top">
-                  {formatDate(a.assessedOn)}
-                  <span className="block text-xs text-ink-faint">week {weeksOf(a.daysSinceStart)}</span>
+      <TableFrame
+        caption="Assessments and scores of this episode"
+        cell="px-4 py-2"
+        columns={['Assessment', 'Date', ...used.map((i) => ({ key: i.code, label: i.label })), 'Daily steps']}
+      >
+        {rows.map((a) => (
+          <tr key={a.id} className="border-b border-line last:border-0">
+            <th scope="row" className="px-4 py-2.5 text-left align-top font-medium">
+              {TIMEPOINT_LABELS[a.timepoint]}
+              <span className="block text-xs font-normal text-ink-faint">{REPORTER_LABELS[a.reporter]}</span>
+            </th>
+            <td className="px-4 py-2.5 align-top">
+              {formatDate(a.assessedOn)}
+              <span className="block text-xs text-ink-faint">week {weeksOf(a.daysSinceStart)}</span>
+            </td>
+            {used.map((i) => {
+              const v = a.scores[i.code];
+              return (
+                <td key={i.code} className="px-4 py-2.5 align-top">
+                  {formatNumber(v)}
+                  {v !== undefined && a.timepoint !== 'baseline' ? (
+                    <ChangeNote baseline={baseline?.scores[i.code]} value={v} instrument={i} />
+                  ) : null}
                 </td>
-                {used.map((i) => {
-                  const v = a.scores[i.code];
-                  return (
-                    <td key={i.code} className="px-4 py-2.5 align-top">
-                      {formatNumber(v)}
-                      {v !== undefined && a.timepoint !== 'baseline' ? (
-                        <ChangeNote baseline={baseline?.scores[i.code]} value={v} instrument={i} />
-                      ) : null}
-                    </td>
-                  );
-                })}
-                <td className="px-4 py-2.5 align-top">{formatNumber(a.avgDailySteps, 0)}</td>
-              </tr>
-            ))}
-          </tbody>
-        </table>
-      </div>
+              );
+            })}
+            <td className="px-4 py-2.5 align-top">{formatNumber(a.avgDailySteps, 0)}</td>
+          </tr>
+        ))}
+      </TableFrame>
       <p className="text-xs text-ink-faint">
         “+” means better for every instrument (less pain, more function). MCIDs and their sources come from the
         registry’s instrument list. These figures describe what was recorded; they are not treatment advice and do not
