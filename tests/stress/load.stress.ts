@@ -1,30 +1,4 @@
-import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
-import { openDatabase, type Database } from '../../server/db/client';
-import { consistencyProblems } from '../setup/consistency';
-import { startChildServer, type ChildServer } from './child-server';
-import { describeLoad, runLoad } from './load-run';
+import { loadSuite } from './load-suite';
 
-// `npm run test:stress`: 50 signed-in clinicians for 30 s against the app in its own process, on loopback.
-let server: ChildServer;
-let database: Database;
-
-beforeAll(async () => {
-  database = openDatabase(inject('databaseUrl'), 4);
-  server = await startChildServer(inject('databaseUrl'));
-});
-afterAll(async () => {
-  await server?.stop();
-  await database?.pool.end();
-});
-
-describe('load: 50 concurrent clients for 30 s', () => {
-  it('answers every request without a 5xx, and every acknowledged write is stored exactly once', async () => {
-    const report = await runLoad({ url: server.url, db: database.db, clients: 50, seconds: 30, clinics: 5, seed: 2 });
-    console.log(describeLoad(report, 'load (50 clients, 30 s)'));
-    expect(report.status5xx, server.output().slice(-2000)).toBe(0);
-    expect(report.unexpected.slice(0, 10)).toEqual([]);
-    expect(report.ledger.uploadIds.length).toBeGreaterThan(0);
-    expect(await report.ledger.problems(database.db, report.clinicIds)).toEqual([]);
-    expect(await consistencyProblems(database.db)).toEqual([]);
-  });
-});
+// `npm run test:stress`: the 30-second load run.
+loadSuite({ seconds: 30, seed: 2 });
