@@ -2,6 +2,7 @@ import { z } from 'zod';
 import { INTERVENTION_KINDS } from '../constants';
 import { ROLES } from '../roles';
 import { listOf } from './episode';
+import { InstrumentInfoSchema, InterventionInfoSchema } from './reference';
 
 export * from './admin-rules';
 export * from './admin-audit';
@@ -103,18 +104,9 @@ const instrumentFields = {
   bodyRegion: text(2, 60, 'body region'),
 };
 
-export const InstrumentSchema = z.object({
-  id: z.number().int(),
-  code: z.string(),
-  label: z.string(),
-  unit: z.string(),
-  min: z.number(),
-  max: z.number(),
-  higherIsBetter: z.boolean(),
-  mcid: z.number().nullable(),
-  mcidSource: z.string(),
+/** The steward's view of an instrument: what the forms see, plus where it applies and what is stored on it. */
+export const InstrumentSchema = InstrumentInfoSchema.extend({
   bodyRegion: z.string(),
-  retired: z.boolean(),
   createdAt: timestamp,
   /** Stored scores and their extremes: the range may never shrink past them. */
   scoreCount: z.number().int(),
@@ -159,12 +151,8 @@ const InterventionCodeCodeSchema = z
 
 export const CODE_STATUSES = ['accepted', 'proposed', 'declined'] as const;
 
-export const InterventionCodeSchema = z.object({
-  id: z.number().int(),
-  code: z.string(),
-  label: z.string(),
-  kind: z.enum(INTERVENTION_KINDS),
-  graded: z.boolean(),
+/** The steward's view of an intervention code: what the forms see, plus its state and use. */
+export const InterventionCodeSchema = InterventionInfoSchema.extend({
   status: z.enum(CODE_STATUSES),
   proposedByClinicId: z.number().int().nullable(),
   proposedByClinicCode: z.string().nullable(),
