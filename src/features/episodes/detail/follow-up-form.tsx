@@ -1,6 +1,6 @@
 import { useState } from 'react';
 import { useForm } from 'react-hook-form';
-import { REPORTERS, TIMEPOINTS } from '../../../../shared/constants';
+import { TIMEPOINTS } from '../../../../shared/constants';
 import type { AssessmentInput, EpisodeDetail } from '../../../../shared/schemas/episode';
 import type { InstrumentInfo } from '../../../../shared/schemas/reference';
 import { ErrorNotice } from '../../../components/error-notice';
@@ -8,7 +8,8 @@ import { FormField, inputClass } from '../../../components/form-field';
 import { useAddAssessment } from '../api/add-assessment';
 import { todayIso } from '../format';
 import { applyServerIssues, numberOrBlank } from '../form-validation';
-import { REPORTER_LABELS, TIMEPOINT_LABELS } from '../labels';
+import { TIMEPOINT_LABELS } from '../labels';
+import { ReporterStepsFields } from '../reporter-steps-fields';
 import { ScoreFields } from '../score-fields';
 import { followUpResolver, nextTimepoint, type FollowUpValues } from './follow-up-values';
 
@@ -99,33 +100,12 @@ function FollowUpFields({ episode, instruments, timepoint, saved, onStart, onSav
         <FormField id="fu-date" label="Date" required error={errors.assessedOn?.message}>
           {(a11y) => <input {...a11y} {...register('assessedOn')} type="date" className={inputClass} />}
         </FormField>
-        <FormField id="fu-reporter" label="Who reported the scores" error={errors.reporter?.message}>
-          {(a11y) => (
-            <select {...a11y} {...register('reporter')} className={inputClass}>
-              {REPORTERS.map((r) => (
-                <option key={r} value={r}>
-                  {REPORTER_LABELS[r]}
-                </option>
-              ))}
-            </select>
-          )}
-        </FormField>
-        <FormField
-          id="fu-steps"
-          label="Average daily steps"
-          hint="If measured; 0 to 100,000"
-          error={errors.avgDailySteps?.message}
-        >
-          {(a11y) => (
-            <input
-              {...a11y}
-              {...register('avgDailySteps', { setValueAs: numberOrBlank })}
-              type="number"
-              inputMode="numeric"
-              className={inputClass}
-            />
-          )}
-        </FormField>
+        <ReporterStepsFields
+          idPrefix="fu"
+          reporter={register('reporter')}
+          steps={register('avgDailySteps', { setValueAs: numberOrBlank })}
+          errors={{ reporter: errors.reporter?.message, steps: errors.avgDailySteps?.message }}
+        />
       </div>
       <ScoreFields
         legend="Scores"

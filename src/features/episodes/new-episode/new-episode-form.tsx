@@ -1,6 +1,5 @@
 import { useForm, useWatch } from 'react-hook-form';
 import { useNavigate } from 'react-router-dom';
-import { REPORTERS } from '../../../../shared/constants';
 import type { EpisodeCreate } from '../../../../shared/schemas/episode';
 import type { InstrumentInfo, PseudonymSalt } from '../../../../shared/schemas/reference';
 import { ErrorNotice } from '../../../components/error-notice';
@@ -9,7 +8,7 @@ import { episodePath } from '../../../config/paths';
 import { useCreateEpisode } from '../api/create-episode';
 import { todayIso } from '../format';
 import { applyServerIssues, numberOrBlank } from '../form-validation';
-import { REPORTER_LABELS } from '../labels';
+import { ReporterStepsFields } from '../reporter-steps-fields';
 import { ScoreFields } from '../score-fields';
 import { EpisodeFactsFields } from './episode-facts-fields';
 import { newEpisodeResolver, type NewEpisodeValues } from './new-episode-form-values';
@@ -77,37 +76,12 @@ export function NewEpisodeForm({ instruments, salt }: Props) {
             >
               {(a11y) => <input {...a11y} {...register('baseline.assessedOn')} type="date" className={inputClass} />}
             </FormField>
-            <FormField
-              id="baseline-reporter"
-              label="Who reported the scores"
-              error={errors.baseline?.reporter?.message}
-            >
-              {(a11y) => (
-                <select {...a11y} {...register('baseline.reporter')} className={inputClass}>
-                  {REPORTERS.map((r) => (
-                    <option key={r} value={r}>
-                      {REPORTER_LABELS[r]}
-                    </option>
-                  ))}
-                </select>
-              )}
-            </FormField>
-            <FormField
-              id="baseline-steps"
-              label="Average daily steps"
-              hint="If measured; 0 to 100,000"
-              error={errors.baseline?.avgDailySteps?.message}
-            >
-              {(a11y) => (
-                <input
-                  {...a11y}
-                  {...register('baseline.avgDailySteps', { setValueAs: numberOrBlank })}
-                  type="number"
-                  inputMode="numeric"
-                  className={inputClass}
-                />
-              )}
-            </FormField>
+            <ReporterStepsFields
+              idPrefix="baseline"
+              reporter={register('baseline.reporter')}
+              steps={register('baseline.avgDailySteps', { setValueAs: numberOrBlank })}
+              errors={{ reporter: errors.baseline?.reporter?.message, steps: errors.baseline?.avgDailySteps?.message }}
+            />
           </div>
         </fieldset>
         <ScoreFields
