@@ -24,7 +24,7 @@ const CONF_TYPES: readonly ConfType[] = ['log', 'log-log', 'plain'];
  * the lower and upper bound columns (`null` = not reached).
  *
  * Cost: O(n) time for the radix sort (`sortNonNegative`; the native
- * O(n log n) sort below 65 536 values) plus O(n) for the sweep; O(n) memory.
+ * O(n log n) sort below 2 048 values) plus O(n) for the sweep; O(n) memory.
  * The output has one object per distinct time, so with continuous times it
  * is the output itself (~n objects) that dominates time and memory.
  *

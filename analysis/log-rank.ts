@@ -21,7 +21,7 @@ import { chiSquareUpperTail } from './chi-square-upper-tail';
  * handled as a generalised inverse and `df` is its rank (less than k − 1).
  *
  * Cost: O(n) for one radix sort of all times with their group tags
- * (`tagSortedTimes`; O(n log n) below 65 536), O(n) for the sweep, O(E·k²)
+ * (`tagSortedTimes`; O(n log n) below 2 048), O(n) for the sweep, O(E·k²)
  * for the expected counts and covariance at E distinct event times and
  * O(k³) for the solve; O(n) memory.
  *

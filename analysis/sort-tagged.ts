@@ -2,10 +2,12 @@ import {
   bucketOffsets,
   digitHistograms,
   LITTLE_ENDIAN,
-  RADIX_BITS,
+  PASS_MASK,
+  PASS_SHIFT,
+  PASS_WORD,
   RADIX_BUCKETS,
-  RADIX_MASK,
   RADIX_MIN_LENGTH,
+  RADIX_PASSES,
 } from './radix-digits';
 
 /**
@@ -20,8 +22,8 @@ import {
  * input order in both cases. Callers that need only the values use
  * `sortNonNegative`, which skips the tag traffic.
  *
- * Cost: O(n) time (at most 5 sweeps), O(n) scratch (12 bytes per value) plus
- * 1 MiB of histograms; O(n log n) below 65 536 values.
+ * Cost: O(n) time (at most 7 sweeps), O(n) scratch (12 bytes per value) plus
+ * 48 KiB of histograms; O(n log n) below 2,048 values.
  *
  * @param values - finite values >= 0 without negative zero. Sorted in place.
  * @param tags - one tag per value (same length). Permuted in place.
@@ -48,12 +50,13 @@ export function sortTagged(values: Float64Array, tags: Int32Array): void {
   let dstTags: Int32Array = new Int32Array(n);
   let dstWords: Uint32Array = new Uint32Array(dst.buffer, dst.byteOffset, 2 * n);
   const offsets = new Uint32Array(RADIX_BUCKETS);
-  for (let pass = 0; pass < 4; pass++) {
+  for (let pass = 0; pass < RADIX_PASSES; pass++) {
     if (!bucketOffsets(counts, pass, n, offsets)) continue;
-    const wordIndex = pass >> 1;
-    const shift = (pass & 1) * RADIX_BITS;
+    const wordIndex = PASS_WORD[pass] ?? 0;
+    const shift = PASS_SHIFT[pass] ?? 0;
+    const mask = PASS_MASK[pass] ?? 0;
     for (let i = 0; i < n; i++) {
-      const digit = ((srcWords[2 * i + wordIndex] ?? 0) >>> shift) & RADIX_MASK;
+      const digit = ((srcWords[2 * i + wordIndex] ?? 0) >>> shift) & mask;
       const pos = offsets[digit] ?? 0;
       offsets[digit] = pos + 1;
       dst[pos] = src[i] ?? 0;

@@ -12,7 +12,7 @@ import { sortNonNegative } from './sort-non-negative';
  * (events at t are counted before censorings at t) without a custom
  * comparator and without one object per observation.
  *
- * Cost: O(n) time (radix sort; O(n log n) below 65 536 values), O(n) extra
+ * Cost: O(n) time (radix sort; O(n log n) below 2 048 values), O(n) extra
  * memory (16 bytes per observation including the sort's scratch buffer).
  *
  * @param obs - observations; each `time` finite and >= 0. Not modified.

@@ -26,7 +26,7 @@ export type TaggedTimes = {
  * O(k) per distinct time. Groups are numbered by label (plain code-unit
  * comparison), so the result does not depend on row order.
  *
- * Cost: O(n) time (O(n log n) below 65 536 values), ~12 bytes per
+ * Cost: O(n) time (O(n log n) below 2 048 values), ~12 bytes per
  * observation plus the sort's scratch.
  *
  * @param obs - observations; `time` finite and >= 0, `event` boolean,

@@ -97,7 +97,7 @@ describe('sortTagged (radix sort carrying a tag, used by log-rank)', () => {
     seed = (seed * 16807) % 2147483647;
     return seed / 2147483647;
   };
-  for (const n of [1_000, 150_000]) {
+  for (const n of [1_000, 2_048, 150_000]) {
     it(`orders values like Float64Array.prototype.sort and keeps each tag with its value (n = ${n})`, () => {
       const next = lcg(n);
       const values = Float64Array.from({ length: n }, (_, i) => (i % 5 === 0 ? Math.floor(next() * 30) : -Math.log(next()) * 20));
