@@ -140,19 +140,21 @@ export function deriveFacts(row: FactsRow, ctx: DeriveContext): EpisodeFacts {
       : baselines[r] == null
         ? followUps[r]!
         : [{ weeks: 0, value: baselines[r]! }, ...followUps[r]!];
-  return {
-    ...episodeFields(row, ctx),
-    byInstrument,
-    recovery: recoveryObservation(recoverySeries, ctx.recoveryRule),
-    assessmentCount: assessmentIds.length,
-  };
+  return episodeFacts(row, ctx, byInstrument, recoveryObservation(recoverySeries, ctx.recoveryRule), assessmentIds.length);
 }
 
-/** The facts of an episode that need none of its scores: its own fields, its bands and its intervention codes. */
-export function episodeFields(
+/**
+ * An episode's facts from its own fields, bands and intervention codes, plus the score facts the caller
+ * derived (or none). One object literal with every field: spreading a partial object into a second one
+ * measured about twice the cost per row, in two allocations instead of one.
+ */
+export function episodeFacts(
   row: FactsRow,
   ctx: DeriveContext,
-): Omit<EpisodeFacts, 'byInstrument' | 'recovery' | 'assessmentCount'> {
+  byInstrument: Map<string, InstrumentFacts>,
+  recovery: Obs | null,
+  assessmentCount: number,
+): EpisodeFacts {
   const codes = new Set<string>();
   for (const id of row.interventions ?? []) {
     const c = ctx.ref.interventionById.get(id);
@@ -177,6 +179,9 @@ export function episodeFields(
     bmi: value,
     bmiBand: bmiBand(value),
     durationBand: symptomDurationBand(row.symptom_weeks),
+    byInstrument,
+    recovery,
     interventionCodes: codes,
+    assessmentCount,
   };
 }
