@@ -2,6 +2,7 @@ import { asc } from 'drizzle-orm';
 import { todayUtc } from '../../shared/follow-up-schedule';
 import { derivePseudonymKey, pseudonymFor } from '../../shared/pseudonym';
 import type { Db } from '../../server/db/client';
+import { withClientTransaction } from '../../server/db/client-transaction';
 import { clinics } from '../../server/db/schema';
 import { audit } from '../../server/services/audit';
 import { loadReferenceData } from '../../server/services/reference.service';
@@ -72,10 +73,10 @@ export async function loadDemoEpisodes(db: Db, o: DemoEpisodeOptions = {}): Prom
       return { clinic: c, plan: planFor(list, pseudonyms, codeIds), count: list.length };
     }),
   );
-  await db.transaction(async (tx) => {
+  await withClientTransaction(db, async (client, tx) => {
     for (const { clinic, plan, count } of plans) {
       if (count === 0) continue;
-      const written = await writePlan(tx, clinic.id, null, plan, ref);
+      const written = await writePlan(tx, client, clinic.id, null, plan, ref);
       await audit(tx, { actorId: null, clinicId: clinic.id, action: 'create', entity: 'demo-scenario', detail: { ...written, generator: 'scripts/seed', seed: o.seed ?? DEMO_SEED } });
     }
   });

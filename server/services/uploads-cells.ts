@@ -1,8 +1,10 @@
 import type { InterventionInput } from '../../shared/schemas/episode';
 import type { UploadColumn } from '../../shared/upload-columns';
 
-/** A converted cell: its value (undefined when empty) or why it could not be read. */
-export type Cell = { ok: true; value: unknown } | { ok: false; message: string };
+/** Why a cell could not be read. A cell that reads returns its value itself: no wrapper object per cell. */
+export class CellProblem {
+  constructor(readonly message: string) {}
+}
 
 const NUMBER = /^[+-]?(\d+(\.\d+)?|\.\d+)$/;
 const INTEGER = /^[+-]?\d+$/;
@@ -22,8 +24,8 @@ const FORMULA = 'starts with = + - or @ like a spreadsheet formula; remove that 
 
 // Clinics reuse a handful of intervention lists: each distinct cell is read once, and episodes share the
 // (never modified) result instead of holding their own copies of the same small objects.
-const LISTS = new Map<string, Cell>();
-function interventions(raw: string): Cell {
+const LISTS = new Map<string, unknown>();
+function interventions(raw: string): unknown {
   let cell = LISTS.get(raw);
   if (cell === undefined) {
     if (LISTS.size > 5_000) LISTS.clear();
@@ -33,17 +35,17 @@ function interventions(raw: string): Cell {
   return cell;
 }
 
-function readInterventions(raw: string): Cell {
+function readInterventions(raw: string): unknown {
   const out: InterventionInput[] = [];
   for (const part of raw.split(';').map((p) => p.trim()).filter((p) => p !== '')) {
-    if (looksLikeFormula(part)) return { ok: false, message: `“${part}” ${FORMULA}` };
+    if (looksLikeFormula(part)) return new CellProblem(`“${part}” ${FORMULA}`);
     const m = INTERVENTION.exec(part.toLowerCase());
-    if (!m) return { ok: false, message: `“${part}” is not an intervention; write code, code:level or code@week:level` };
+    if (!m) return new CellProblem(`“${part}” is not an intervention; write code, code:level or code@week:level`);
     const level = m[3] === undefined ? null : Number(m[3]);
-    if (level !== null && (level < 1 || level > 3)) return { ok: false, message: `“${part}”: a level is 1, 2 or 3` };
+    if (level !== null && (level < 1 || level > 3)) return new CellProblem(`“${part}”: a level is 1, 2 or 3`);
     out.push({ code: m[1]!, startWeek: m[2] === undefined ? 0 : Number(m[2]), maxLevel: level });
   }
-  return { ok: true, value: out };
+  return out;
 }
 
 // Dates repeat across rows (a few hundred distinct days): keep one copy of each.
@@ -56,43 +58,45 @@ function intern(s: string): string {
   return s;
 }
 
-/** Reads one cell of `col`. Cells are trimmed; an empty cell is `undefined` (required cells are checked by the caller). */
-export function readCell(col: UploadColumn, raw: string): Cell {
+/**
+ * Reads one cell of `col`: its value, or a CellProblem. Cells are trimmed; an empty cell is `undefined`
+ * (required cells are checked by the caller).
+ */
+export function readCell(col: UploadColumn, raw: string): unknown {
   const s = raw.trim();
-  if (s === '') return { ok: true, value: undefined };
+  if (s === '') return undefined;
   switch (col.type) {
     case 'integer':
     case 'number': {
       if (!(col.type === 'integer' ? INTEGER : NUMBER).test(s)) {
-        if (/^[=@]/.test(s) || (looksLikeFormula(s) && !NUMBER.test(s))) return { ok: false, message: `The cell ${FORMULA}` };
-        return {
-          ok: false,
-          message: col.type === 'integer' ? `Use a whole number (not “${s.slice(0, 20)}”)` : `Use a number like 74.5, with a point for decimals and no units (not “${s.slice(0, 20)}”)`,
-        };
+        if (/^[=@]/.test(s) || (looksLikeFormula(s) && !NUMBER.test(s))) return new CellProblem(`The cell ${FORMULA}`);
+        return new CellProblem(
+          col.type === 'integer' ? `Use a whole number (not “${s.slice(0, 20)}”)` : `Use a number like 74.5, with a point for decimals and no units (not “${s.slice(0, 20)}”)`,
+        );
       }
-      return { ok: true, value: Number(s) };
+      return Number(s);
     }
     case 'boolean': {
-      if (looksLikeFormula(s)) return { ok: false, message: `The cell ${FORMULA}` };
+      if (looksLikeFormula(s)) return new CellProblem(`The cell ${FORMULA}`);
       const v = s.toLowerCase();
-      if (TRUE.has(v)) return { ok: true, value: true };
-      if (FALSE.has(v)) return { ok: true, value: false };
-      return { ok: false, message: `Use yes or no (not “${s.slice(0, 20)}”)` };
+      if (TRUE.has(v)) return true;
+      if (FALSE.has(v)) return false;
+      return new CellProblem(`Use yes or no (not “${s.slice(0, 20)}”)`);
     }
     case 'enum': {
-      if (looksLikeFormula(s)) return { ok: false, message: `The cell ${FORMULA}` };
+      if (looksLikeFormula(s)) return new CellProblem(`The cell ${FORMULA}`);
       // The constant itself, not the cell's copy: 100,000 rows then share one string per value.
       const v = col.values!.find((x) => x === s.toLowerCase());
-      if (v === undefined) return { ok: false, message: `Use one of: ${col.values!.join(', ')} (not “${s.slice(0, 20)}”)` };
-      return { ok: true, value: v };
+      if (v === undefined) return new CellProblem(`Use one of: ${col.values!.join(', ')} (not “${s.slice(0, 20)}”)`);
+      return v;
     }
     case 'interventions':
       return interventions(s);
     case 'date':
-      if (looksLikeFormula(s)) return { ok: false, message: `The cell ${FORMULA}` };
-      return { ok: true, value: intern(s) };
+      if (looksLikeFormula(s)) return new CellProblem(`The cell ${FORMULA}`);
+      return intern(s);
     default:
-      if (looksLikeFormula(s)) return { ok: false, message: `The cell ${FORMULA}` };
-      return { ok: true, value: s };
+      if (looksLikeFormula(s)) return new CellProblem(`The cell ${FORMULA}`);
+      return s;
   }
 }

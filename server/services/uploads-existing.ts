@@ -40,15 +40,21 @@ export async function loadStoredEpisodes(tx: Tx, clinicId: number, references: s
   const ids = sql.param([...byId.keys()]);
   // Scores come aggregated per assessment (one row each, not one per score): fewer objects in memory.
   // One query after the other: a transaction is one connection, and pg queues (and soon refuses) concurrent ones.
+  // The chunk's assessments first (materialized), then a lateral lookup of each one's scores: a plain join
+  // lets the planner, when the tables have no statistics yet (just after a large upload), aggregate the
+  // scores of every assessment in the registry for every chunk.
   const asm = await tx.execute<{
     id: number; episode_id: number; assessed_on: string; timepoint: Timepoint; reporter: 'clinician' | 'patient';
     avg_daily_steps: number | null; adverse_event: string | null; codes: string[] | null; vals: number[] | null;
   }>(sql`
-    select a.id, a.episode_id, a.assessed_on, a.timepoint, a.reporter, a.avg_daily_steps, a.adverse_event,
-      array_agg(i.code order by i.id) filter (where i.id is not null) as codes,
-      array_agg(s.value::float8 order by i.id) filter (where i.id is not null) as vals
-    from assessment a left join score s on s.assessment_id = a.id left join instrument i on i.id = s.instrument_id
-    where a.episode_id = any(${ids}::int[]) group by a.id`);
+    with a as materialized (
+      select id, episode_id, assessed_on, timepoint, reporter, avg_daily_steps, adverse_event from assessment
+      where episode_id = any(${ids}::int[])
+    )
+    select a.*, sc.codes, sc.vals from a cross join lateral (
+      select array_agg(i.code order by i.id) as codes, array_agg(s.value::float8 order by i.id) as vals
+      from score s join instrument i on i.id = s.instrument_id where s.assessment_id = a.id
+    ) sc`);
   for (const a of asm.rows) {
     const scores: Record<string, number> = {};
     a.codes?.forEach((c, k) => (scores[c] = a.vals![k]!));

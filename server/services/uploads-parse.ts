@@ -1,3 +1,4 @@
+import { parse as parseStream, type Options } from 'csv-parse';
 import { CsvError, parse } from 'csv-parse/sync';
 import { UPLOAD_COLUMNS, UPLOAD_MAX_ROWS, type UploadColumn } from '../../shared/upload-columns';
 import type { UploadIssue } from '../../shared/schemas/upload';
@@ -40,49 +41,95 @@ export function readHeader(cells: string[]): Header {
   return { columns, has: new Set(firstAt.keys()) };
 }
 
+type OnRow = (cells: string[], row: number, header: Header) => void;
+
+/**
+ * What every record goes through, whichever reader read it: the header, the width check, the row count and
+ * limit. Row numbers are file lines (header = 1), as a spreadsheet shows them.
+ */
+export class RowFeeder {
+  header: Header | undefined;
+  rows = 0;
+  private width = 0;
+
+  constructor(
+    private readonly log: IssueLog,
+    private readonly onRow: OnRow,
+  ) {}
+
+  feed(record: string[], line: number): void {
+    if (!this.header) {
+      this.header = readHeader(record);
+      this.width = record.length;
+      return;
+    }
+    if (record.every((c) => c.trim() === '')) return; // a spreadsheet's trailing ",,,," line
+    this.rows++;
+    if (this.rows > UPLOAD_MAX_ROWS) return; // keep counting only; refused in finish()
+    if (record.length !== this.width) {
+      this.log.add(line, null, `This row has ${record.length} cells but the header has ${this.width} (a comma too many or too few, or a quote left open?)`);
+      return;
+    }
+    this.onRow(record, line, this.header);
+  }
+
+  /** After the last record: the file-wide refusals (empty, no data rows, too many rows). */
+  finish(): { header: Header; rows: number } {
+    const { header, rows } = this;
+    if (!header) throw new UploadRejected(422, 'The file is empty; it needs a header row and at least one data row');
+    if (rows === 0) throw new UploadRejected(422, 'The file has a header but no data rows', [{ row: 2, column: null, message: 'No data rows after the header' }]);
+    if (rows > UPLOAD_MAX_ROWS) {
+      throw new UploadRejected(413, `The file has ${rows.toLocaleString('en')} data rows; the limit is ${UPLOAD_MAX_ROWS.toLocaleString('en')} per upload. Split it into smaller files`);
+    }
+    return { header, rows };
+  }
+}
+
+/** How uploads are read with csv-parse (one place, so both reading paths agree). */
+const CSV_OPTIONS: Options = { bom: true, relax_column_count: true, skip_empty_lines: true, max_record_size: 64 * 1024 };
+
+/** csv-parse's complaint about the file as the upload's clear 422; anything else unchanged. */
+function asRejection(e: unknown): unknown {
+  if (!(e instanceof CsvError)) return e;
+  const line = typeof e.lines === 'number' ? e.lines : 0;
+  return new UploadRejected(422, `The file is not valid CSV near line ${line}: ${e.message}`, [{ row: line, column: null, message: e.message }]);
+}
+
+/**
+ * The file's records one at a time, each with its line (the header is line 1), read by csv-parse's streaming
+ * parser: the caller can stop between records (to write a chunk) without holding every record.
+ */
+export async function* csvRecords(text: Buffer): AsyncGenerator<[string[], number]> {
+  const parser = parseStream({ ...CSV_OPTIONS, info: true });
+  parser.end(text);
+  try {
+    for await (const entry of parser) {
+      const { record, info } = entry as { record: string[]; info: { lines: number } };
+      yield [record, info.lines];
+    }
+  } catch (e) {
+    throw asRejection(e);
+  } finally {
+    parser.destroy();
+  }
+}
+
 /**
  * Parses the CSV text in one pass, handing each data row to `onRow` as soon as it is read (no copy of the
- * whole file as records). Row numbers are file lines (header = 1), as a spreadsheet shows them.
+ * whole file as records), with csv-parse.
  */
-export function parseRows(text: Buffer, log: IssueLog, onRow: (cells: string[], row: number, header: Header) => void): { header: Header; rows: number } {
-  let header: Header | undefined;
-  let width = 0;
-  let rows = 0;
+export function parseRows(text: Buffer, log: IssueLog, onRow: OnRow): { header: Header; rows: number } {
+  const feeder = new RowFeeder(log, onRow);
   try {
     parse(text, {
-      bom: true,
-      relax_column_count: true,
-      skip_empty_lines: true,
-      max_record_size: 64 * 1024,
+      ...CSV_OPTIONS,
       on_record: (record: string[], ctx) => {
-        if (!header) {
-          header = readHeader(record);
-          width = record.length;
-          return null;
-        }
-        if (record.every((c) => c.trim() === '')) return null; // a spreadsheet's trailing ",,,," line
-        rows++;
-        if (rows > UPLOAD_MAX_ROWS) return null; // keep counting only; refused below
-        if (record.length !== width) {
-          log.add(ctx.lines, null, `This row has ${record.length} cells but the header has ${width} (a comma too many or too few, or a quote left open?)`);
-          return null;
-        }
-        onRow(record, ctx.lines, header);
+        feeder.feed(record, ctx.lines);
         return null;
       },
     });
   } catch (e) {
-    if (e instanceof UploadRejected) throw e;
-    if (e instanceof CsvError) {
-      const line = typeof e.lines === 'number' ? e.lines : 0;
-      throw new UploadRejected(422, `The file is not valid CSV near line ${line}: ${e.message}`, [{ row: line, column: null, message: e.message }]);
-    }
-    throw e;
+    throw e instanceof UploadRejected ? e : asRejection(e);
   }
-  if (!header) throw new UploadRejected(422, 'The file is empty; it needs a header row and at least one data row');
-  if (rows === 0) throw new UploadRejected(422, 'The file has a header but no data rows', [{ row: 2, column: null, message: 'No data rows after the header' }]);
-  if (rows > UPLOAD_MAX_ROWS) {
-    throw new UploadRejected(413, `The file has ${rows.toLocaleString('en')} data rows; the limit is ${UPLOAD_MAX_ROWS.toLocaleString('en')} per upload. Split it into smaller files`);
-  }
-  return { header, rows };
+  return feeder.finish();
 }

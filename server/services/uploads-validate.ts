@@ -4,7 +4,7 @@ import { AssessmentInputSchema, EpisodeCreateSchema, IsoDateSchema, type Interve
 import { UPLOAD_COLUMNS } from '../../shared/upload-columns';
 import type { IssueLog } from './uploads-issues';
 import type { Header } from './uploads-parse';
-import { readCell } from './uploads-cells';
+import { CellProblem, readCell } from './uploads-cells';
 import { RowStore } from './uploads-rows';
 import { scoreProblems } from './reference-checks';
 import type { ReferenceData } from './reference.service';
@@ -32,15 +32,17 @@ export type UploadAssessment = {
 export type ReadEpisode = {
   reference: string;
   firstRow: number;
-  /** The first row's episode cells as written (a later row that differs is compared as read: "Yes" = "yes"). */
-  rawKey: string;
+  /** The first row's episode cells as written (a later row that differs is compared as read: "Yes" = "yes"); null once read. */
+  rawCells: string[] | null;
   fields: UploadEpisodeFields | null;
   interventions: InterventionInput[] | undefined;
-  /** The episode's accepted rows, as indices into the file's RowStore. */
+  /** The episode's accepted rows, as indices into the file's RowStore (a file read whole)... */
   rowIds: number[];
+  /** ...or as objects (a file read as it is written, where only a chunk's rows are alive at a time). */
+  rows: UploadAssessment[] | undefined;
 };
 /** An episode as the planner reads it: its rows as objects (made chunk by chunk from the RowStore). */
-export type UploadEpisode = Omit<ReadEpisode, 'rawKey' | 'rowIds'> & { rows: UploadAssessment[] };
+export type UploadEpisode = Omit<ReadEpisode, 'rawCells' | 'rowIds' | 'rows'> & { rows: UploadAssessment[] };
 
 const COLUMN_OF_FIELD = new Map(UPLOAD_COLUMNS.filter((c) => c.level !== 'score').map((c) => [c.field, c.name]));
 const COLUMN_OF_SCORE = new Map(UPLOAD_COLUMNS.filter((c) => c.level === 'score').map((c) => [c.field, c.name]));
@@ -74,9 +76,11 @@ export class RowCollector {
   private refIndex = -1;
   private rowStore: RowStore | undefined;
 
+  /** `asObjects`: keep each episode's rows as objects instead of in one RowStore for the whole file. */
   constructor(
     private readonly log: IssueLog,
     private readonly ref: ReferenceData,
+    private readonly asObjects = false,
   ) {}
 
   /** The accepted rows (undefined until a row is read). */
@@ -85,12 +89,12 @@ export class RowCollector {
   }
 
   add(cells: string[], row: number, header: Header): void {
-    const rawKey = this.rawEpisodeKey(cells, header);
     if (this.refIndex < 0) this.refIndex = header.columns.findIndex((c) => c?.name === 'episode_reference');
+    this.episodeCells ??= header.columns.flatMap((c, i) => (c.level === 'episode' ? [i] : []));
     const reference = cells[this.refIndex]!.trim();
     const known = this.episodes.get(reference);
     // Fast path: a row repeating its episode's first row exactly needs no second reading of the episode columns.
-    const repeat = known !== undefined && known.rawKey === rawKey;
+    const repeat = known !== undefined && known.rawCells !== null && this.sameEpisodeCells(known.rawCells, cells);
     const epi: Record<string, unknown> = {};
     const asm: Record<string, unknown> = {};
     const scoreCells: Record<string, number | null> = {};
@@ -100,22 +104,22 @@ export class RowCollector {
     for (let i = 0; i < columns.length; i++) {
       const col = columns[i]!;
       if (repeat && col.level === 'episode') continue;
-      const cell = readCell(col, cells[i]!);
-      if (!cell.ok) {
-        this.log.add(row, col.name, cell.message);
+      const value = readCell(col, cells[i]!);
+      if (value instanceof CellProblem) {
+        this.log.add(row, col.name, value.message);
         (bad ??= new Set()).add(col.field);
         continue;
       }
-      if (cell.value === undefined && col.required) {
+      if (value === undefined && col.required) {
         this.log.add(row, col.name, `Enter a value for ${col.name} (a required column)`);
         (bad ??= new Set()).add(col.field);
         continue;
       }
       if (col.level === 'episode') {
-        epi[col.field] = cell.value;
-        keyParts[i] = cell.value === undefined ? '' : typeof cell.value === 'object' ? JSON.stringify(cell.value) : String(cell.value);
-      } else if (col.level === 'assessment') asm[col.field] = cell.value;
-      else scoreCells[col.field] = (cell.value as number | undefined) ?? null;
+        epi[col.field] = value;
+        keyParts[i] = value === undefined ? '' : typeof value === 'object' ? JSON.stringify(value) : String(value);
+      } else if (col.level === 'assessment') asm[col.field] = value;
+      else scoreCells[col.field] = (value as number | undefined) ?? null;
     }
     if (bad) {
       // The row is refused, but its readable cells are still checked, so one pass reports all of its problems.
@@ -123,15 +127,14 @@ export class RowCollector {
       return;
     }
     if (!reference) return;
-    const group = repeat ? (known.fields ? known : null) : this.episodeOf(reference, rawKey, keyParts.join('\u001f'), epi, row, header);
+    const group = repeat ? (known.fields ? known : null) : this.episodeOf(reference, cells, keyParts.join('\u001f'), epi, row, header);
     if (!group) {
       this.log.rejectedRows.add(row); // its episode's columns are not valid (reported on the episode's first row)
       return;
     }
     const parsed = this.checkAssessment(row, asm, scoreCells, null);
     if (!parsed) return;
-    this.rowStore ??= new RowStore(header);
-    group.rowIds.push(this.rowStore.add({
+    const accepted: UploadAssessment = {
       row,
       assessedOn: parsed.assessedOn,
       timepoint: parsed.timepoint,
@@ -139,7 +142,9 @@ export class RowCollector {
       avgDailySteps: header.has.has('avg_daily_steps') ? (parsed.avgDailySteps ?? null) : undefined,
       adverseEvent: header.has.has('adverse_event') ? parsed.adverseEvent || null : undefined,
       scores: scoreCells,
-    }));
+    };
+    if (group.rows) group.rows.push(accepted);
+    else group.rowIds.push((this.rowStore ??= new RowStore(header)).add(accepted));
   }
 
   /**
@@ -176,24 +181,25 @@ export class RowCollector {
     return ok && parsed.success && problems.length === 0 ? parsed.data : null;
   }
 
+  /** Positions of the episode columns. */
   private episodeCells: number[] | undefined;
-  /** The row's episode cells as written, joined into one flat string (a `+=` chain would keep a tree of pieces per episode). */
-  private rawEpisodeKey(cells: string[], header: Header): string {
-    this.episodeCells ??= header.columns.flatMap((c, i) => (c.level === 'episode' ? [i] : []));
-    const parts = this.episodeCells.map((i) => cells[i]);
-    parts.push(''); // the old key's trailing separator, which convertedKey's split expects
-    return parts.join('\u001f');
+  /** Whether a row's episode cells are exactly an episode's first row's (compared cell by cell: nothing to build). */
+  private sameEpisodeCells(first: string[], cells: string[]): boolean {
+    const at = this.episodeCells!;
+    for (let k = 0; k < at.length; k++) if (first[k] !== cells[at[k]!]) return false;
+    return true;
   }
 
   /** The episode a row belongs to; every row must repeat the first row's episode columns exactly. */
-  private episodeOf(reference: string, rawKey: string, key: string, epi: Record<string, unknown>, row: number, header: Header): ReadEpisode | null {
+  private episodeOf(reference: string, cells: string[], key: string, epi: Record<string, unknown>, row: number, header: Header): ReadEpisode | null {
     const known = this.episodes.get(reference);
     if (known) {
-      const first = this.convertedKey(known.rawKey, header);
+      const first = this.convertedKey(known.rawCells ?? [], header);
       if (first !== key) this.reportConflict(known, first, key, row, header);
       return first === key && known.fields ? known : null;
     }
-    const group: ReadEpisode = { reference, firstRow: row, rawKey, fields: null, interventions: undefined, rowIds: [] };
+    const rawCells = this.episodeCells!.map((i) => cells[i]!);
+    const group: ReadEpisode = { reference, firstRow: row, rawCells, fields: null, interventions: undefined, rowIds: [], rows: this.asObjects ? [] : undefined };
     this.episodes.set(reference, group);
     const { interventions, ...fields } = epi;
     const parsed = UploadEpisodeSchema.safeParse(fields);
@@ -206,15 +212,14 @@ export class RowCollector {
     return group;
   }
 
-  /** The episode columns of a stored raw key, read as cells are read (only when a later row differs). */
-  private convertedKey(rawKey: string, header: Header): string {
-    const raw = rawKey.split('\u001f');
+  /** The episode columns of a first row, read as cells are read (only when a later row differs). */
+  private convertedKey(raw: string[], header: Header): string {
     const parts: string[] = [];
     let k = 0;
     header.columns.forEach((col, i) => {
       if (col.level !== 'episode') return;
       const cell = readCell(col, raw[k++] ?? '');
-      const v = cell.ok ? cell.value : raw[k - 1];
+      const v = cell instanceof CellProblem ? raw[k - 1] : cell;
       parts[i] = v === undefined ? '' : typeof v === 'object' ? JSON.stringify(v) : String(v);
     });
     return parts.join('\u001f');

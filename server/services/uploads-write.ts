@@ -1,24 +1,51 @@
 import { sql } from 'drizzle-orm';
+import type pg from 'pg';
 import type { Tx } from './audit';
 import type { ReferenceData } from './reference.service';
 import type { Plan } from './uploads-plan';
-import { newRowsStatement, scoreArrays } from './uploads-write-new';
+import { IdPool } from './uploads-ids';
+import { copyNewRows, newRowsText, scoreArrays } from './uploads-write-new';
 
 const p = (v: unknown[]) => sql.param(v);
 
-/**
- * Writes one chunk's plan inside the caller's transaction: one statement for everything new, then one per kind
- * of change to stored rows (arrays through unnest(), so no per-row round trips and no parameter limit). The
- * statements run one after the other: a transaction is one connection, which takes one query at a time.
- */
 export type WriteCounts = { episodesCreated: number; episodesUpdated: number; assessmentsCreated: number; assessmentsUpdated: number };
+export type PreparedWrite = { counts: WriteCounts; run(tx: Tx, client: pg.PoolClient): Promise<void> };
 
-export async function writePlan(tx: Tx, clinicId: number, userId: number | null, plan: Plan, ref: ReferenceData): Promise<WriteCounts> {
+/**
+ * One chunk's plan, made ready to write inside the caller's transaction (`tx` and `client` are the same
+ * connection): the COPY text for everything new is made now (ids from `ids`), so `run` only sends; changes to
+ * stored rows are one statement per kind (arrays through unnest(), so no per-row round trips and no parameter
+ * limit). Statements run one after the other: a connection takes one query at a time.
+ */
+export function prepareWrite(clinicId: number, userId: number | null, plan: Plan, ref: ReferenceData, ids: IdPool): PreparedWrite {
   const created = plan.episodes.filter((e) => !e.stored);
   const fresh = plan.assessments.filter((a) => !a.stored);
-  const inserts = newRowsStatement(clinicId, userId, created, fresh, ref);
-  if (inserts) await tx.execute(inserts);
+  const rows = newRowsText(clinicId, userId, created, fresh, ref, ids);
+  const updated = plan.episodes.filter((e) => e.stored && e.changed.length > 0);
+  const counts = { episodesCreated: created.length, episodesUpdated: updated.length, assessmentsCreated: fresh.length, assessmentsUpdated: plan.assessments.length - fresh.length };
+  // Only the text is kept for a plan that changes nothing stored (the usual new file): the plan's many small
+  // objects are then garbage at once instead of living on, while the next chunk is read, into the old generation.
+  const changes = plan.episodes.some((e) => e.stored) || counts.assessmentsUpdated > 0 ? plan : null;
+  return {
+    counts,
+    run: async (tx, client) => {
+      await copyNewRows(client, rows);
+      if (changes) await writeChanges(tx, clinicId, userId, changes, ref);
+    },
+  };
+}
 
+/** Reserves ids for a plan and writes it (for a caller that writes one plan at a time, as the demo seed does). */
+export async function writePlan(tx: Tx, client: pg.PoolClient, clinicId: number, userId: number | null, plan: Plan, ref: ReferenceData): Promise<WriteCounts> {
+  const ids = new IdPool();
+  await ids.ensure(tx, plan.episodes.length, plan.assessments.length);
+  const prepared = prepareWrite(clinicId, userId, plan, ref, ids);
+  await prepared.run(tx, client);
+  return prepared.counts;
+}
+
+/** The changes to stored episodes and assessments. */
+async function writeChanges(tx: Tx, clinicId: number, userId: number | null, plan: Plan, ref: ReferenceData): Promise<void> {
   const updated = plan.episodes.filter((e) => e.stored && e.changed.length > 0);
   if (updated.length > 0) {
     const col = <K extends keyof (typeof updated)[number]['fields']>(k: K) => p(updated.map((e) => e.fields[k]));
@@ -63,5 +90,4 @@ export async function writePlan(tx: Tx, clinicId: number, userId: number | null,
       insert into score (assessment_id, instrument_id, value)
       select * from unnest(${p(s.of)}::int[], ${p(s.instrument)}::int[], ${p(s.value)}::numeric[])`);
   }
-  return { episodesCreated: created.length, episodesUpdated: updated.length, assessmentsCreated: fresh.length, assessmentsUpdated: changed.length };
 }

@@ -65,4 +65,24 @@ describe('CSV upload written chunk by chunk', () => {
     // Baselines hold 3 scores (no GROC), follow-ups 4.
     expect(n.rows[0]).toEqual({ a: 2400 + 3900, s: (1200 + 1300) * 3 + (1200 + 2600) * 4 });
   });
+
+  it('a file whose episodes are spread out (all baselines first) is read whole, after chunks were already written', async () => {
+    // Rows of 1,500 episodes ordered by visit: the first chunk is planned (and written) before the follow-ups
+    // of its episodes turn up, so the commit starts again reading the file whole; nothing may be doubled.
+    // Not consenting: registry-wide research scans in other test files then meet no more rows than before.
+    const visits = Array.from({ length: 1500 }, (_, i) => episodeRows(`CS-${i}`, 1, { research_consent: 'no' })).flat();
+    const file = [...visits.filter((r) => r.timepoint === 'baseline'), ...visits.filter((r) => r.timepoint !== 'baseline')];
+    const dry = await lead.post('/api/uploads/episodes?dryRun=1').attach('file', Buffer.from(csv(file), 'utf8'), 'spread.csv');
+    expect(dry.body.changes).toEqual({ episodesCreated: 1500, episodesUpdated: 0, assessmentsCreated: 3000, assessmentsUpdated: 0, rowsUnchanged: 0 });
+    const res = await send(csv(file));
+    expect(res.status, JSON.stringify(res.body).slice(0, 400)).toBe(200);
+    expect(res.body.changes).toEqual(dry.body.changes);
+    const n = await ctx.db.execute<{ e: number; a: number; s: number; i: number }>(sql`
+      select count(distinct e.id)::int as e, count(distinct a.id)::int as a, count(s.*)::int as s,
+        (select count(*)::int from episode_intervention x join episode y on y.id = x.episode_id where y.clinic_id = ${clinicId} and y.reference like 'CS-%') as i
+      from episode e join assessment a on a.episode_id = e.id left join score s on s.assessment_id = a.id
+      where e.clinic_id = ${clinicId} and e.reference like 'CS-%'`);
+    expect(n.rows[0]).toEqual({ e: 1500, a: 3000, s: 1500 * 3 + 1500 * 4, i: 1500 * 3 });
+    expect((await send(csv(file))).body.changes).toMatchObject({ episodesCreated: 0, assessmentsCreated: 0, rowsUnchanged: 3000 });
+  });
 });

@@ -5,19 +5,24 @@ import {
 import {
   ACTIVITY_PROFILES, DISCHARGE_REASONS, EPISODE_STATUSES, REPORTERS, SEXES, SIDES, TIMEPOINTS,
 } from '../../../shared/constants';
-import { clinics } from './clinics';
-import { conditions, instruments, interventionCodes } from './reference';
-import { users } from './users';
+
+/**
+ * Episode, assessment, score and episode_intervention reference their parents through statement-level triggers
+ * instead of foreign key constraints (migration 0012_ref_triggers): the same rules (a missing parent is refused;
+ * deleting an episode or assessment deletes its children; deleting or re-keying a referenced row is refused;
+ * a concurrent delete of a parent waits), checked once per statement and distinct parent instead of once per
+ * row, which is what lets a 100,000-row upload commit in seconds. The `// →` comments name each reference.
+ */
 
 /** One pseudonymised episode of care. Never holds a direct identifier; BMI is derived from height and weight. */
 export const episodes = pgTable(
   'episode',
   {
     id: serial('id').primaryKey(),
-    clinicId: integer('clinic_id').notNull().references(() => clinics.id),
+    clinicId: integer('clinic_id').notNull(), // → clinic.id (trigger)
     pseudonym: char('pseudonym', { length: 64 }).notNull(),
     reference: text('reference').notNull(),
-    conditionCode: text('condition_code').notNull().references(() => conditions.code),
+    conditionCode: text('condition_code').notNull(), // → condition.code (trigger)
     side: text('side', { enum: SIDES }).notNull(),
     startDate: date('start_date', { mode: 'string' }).notNull(),
     symptomWeeks: integer('symptom_weeks').notNull(),
@@ -32,8 +37,8 @@ export const episodes = pgTable(
     dischargeDate: date('discharge_date', { mode: 'string' }),
     dischargeReason: text('discharge_reason', { enum: DISCHARGE_REASONS }),
     version: integer('version').notNull().default(1),
-    createdBy: integer('created_by').references(() => users.id),
-    updatedBy: integer('updated_by').references(() => users.id),
+    createdBy: integer('created_by'), // → app_user.id (trigger)
+    updatedBy: integer('updated_by'), // → app_user.id (trigger)
     createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
     updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow(),
   },
@@ -44,18 +49,19 @@ export const episodes = pgTable(
   ],
 );
 
+
 /** An assessment at a timepoint; its scores are rows of `score`. Weeks since start are derived, not stored. */
 export const assessments = pgTable(
   'assessment',
   {
     id: serial('id').primaryKey(),
-    episodeId: integer('episode_id').notNull().references(() => episodes.id, { onDelete: 'cascade' }),
+    episodeId: integer('episode_id').notNull(), // → episode.id, on delete cascade (trigger)
     assessedOn: date('assessed_on', { mode: 'string' }).notNull(),
     timepoint: text('timepoint', { enum: TIMEPOINTS }).notNull(),
     reporter: text('reporter', { enum: REPORTERS }).notNull(),
     avgDailySteps: integer('avg_daily_steps'),
     adverseEvent: text('adverse_event'),
-    createdBy: integer('created_by').references(() => users.id),
+    createdBy: integer('created_by'), // → app_user.id (trigger)
     createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
   },
   (t) => [
@@ -67,8 +73,8 @@ export const assessments = pgTable(
 export const scores = pgTable(
   'score',
   {
-    assessmentId: integer('assessment_id').notNull().references(() => assessments.id, { onDelete: 'cascade' }),
-    instrumentId: integer('instrument_id').notNull().references(() => instruments.id),
+    assessmentId: integer('assessment_id').notNull(), // → assessment.id, on delete cascade (trigger)
+    instrumentId: integer('instrument_id').notNull(), // → instrument.id (trigger)
     value: numeric('value', { mode: 'number' }).notNull(),
   },
   (t) => [primaryKey({ columns: [t.assessmentId, t.instrumentId] }), index('score_instrument_idx').on(t.instrumentId)],
@@ -78,8 +84,8 @@ export const scores = pgTable(
 export const episodeInterventions = pgTable(
   'episode_intervention',
   {
-    episodeId: integer('episode_id').notNull().references(() => episodes.id, { onDelete: 'cascade' }),
-    interventionCodeId: integer('intervention_code_id').notNull().references(() => interventionCodes.id),
+    episodeId: integer('episode_id').notNull(), // → episode.id, on delete cascade (trigger)
+    interventionCodeId: integer('intervention_code_id').notNull(), // → intervention_code.id (trigger)
     startWeek: integer('start_week').notNull().default(0),
     maxLevel: integer('max_level'),
   },
