@@ -16,11 +16,19 @@ export function poolOf(db: Db): pg.Pool {
  * rolls back and rethrows. A connection whose rollback failed is discarded, not returned to the pool.
  */
 export async function withClientTransaction<T>(db: Db, fn: (client: pg.PoolClient, tx: Db) => Promise<T>): Promise<T> {
+  return onOwnConnection(db, ['begin'], (client) => fn(client, drizzle(client, { schema, casing: 'snake_case' }) as unknown as Db));
+}
+
+/**
+ * The transaction wrapper both raw-client transactions share: runs the `begin` statements, then `fn`, commits
+ * when it resolves, otherwise rolls back and rethrows. A connection whose rollback failed is discarded.
+ */
+export async function onOwnConnection<T>(db: Db, begin: readonly string[], fn: (client: pg.PoolClient) => Promise<T>): Promise<T> {
   const client = await poolOf(db).connect();
   let broken: Error | undefined;
   try {
-    await client.query('begin');
-    const result = await fn(client, drizzle(client, { schema, casing: 'snake_case' }) as unknown as Db);
+    for (const statement of begin) await client.query(statement);
+    const result = await fn(client);
     await client.query('commit');
     return result;
   } catch (e) {

@@ -1,6 +1,7 @@
 import pg from 'pg';
 import Cursor from 'pg-cursor';
 import type { Db } from '../../db/client';
+import { onOwnConnection } from '../../db/client-transaction';
 import { deriveFacts, type DeriveContext, type EpisodeFacts, type FactsRow } from './derive';
 
 /**
@@ -25,34 +26,14 @@ export function factsQuery(opts: { scores: boolean }): string {
     order by e.id`;
 }
 
-function poolOf(db: Db): pg.Pool {
-  const client = (db as unknown as { $client: unknown }).$client;
-  if (!(client instanceof pg.Pool)) throw new Error('cohort scans need a pg.Pool behind the Drizzle handle');
-  return client;
-}
 
 /**
  * Runs `fn` on one connection inside a read-only REPEATABLE READ transaction, so every query in it (the counts,
  * both passes of an export) sees the same snapshot even while clinics keep writing.
  */
 export async function withSnapshot<T>(db: Db, fn: (client: pg.PoolClient) => Promise<T>): Promise<T> {
-  const client = await poolOf(db).connect();
-  let broken: Error | undefined;
-  try {
-    await client.query('begin isolation level repeatable read read only');
-    // JIT compilation costs more than it saves on these one-pass scans.
-    await client.query('set local jit = off');
-    const result = await fn(client);
-    await client.query('commit');
-    return result;
-  } catch (e) {
-    await client.query('rollback').catch((err: unknown) => {
-      broken = err instanceof Error ? err : new Error(String(err));
-    });
-    throw e;
-  } finally {
-    client.release(broken);
-  }
+  // JIT compilation costs more than it saves on these one-pass scans.
+  return onOwnConnection(db, ['begin isolation level repeatable read read only', 'set local jit = off'], fn);
 }
 
 /** Consenting and all episodes, for the first line of the flow diagram. */
