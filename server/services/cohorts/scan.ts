@@ -2,6 +2,7 @@ import pg from 'pg';
 import Cursor from 'pg-cursor';
 import type { Db } from '../../db/client';
 import { onOwnConnection } from '../../db/client-transaction';
+import { cursorBatches } from '../../db/cursor-batches';
 import { deriveFacts, type DeriveContext, type EpisodeFacts, type FactsRow } from './derive';
 
 /**
@@ -60,18 +61,5 @@ export async function* scanFacts(
 ): AsyncGenerator<Iterable<EpisodeFacts>> {
   const size = opts.batchSize ?? 250;
   const cursor = client.query(new Cursor<FactsRow>(factsQuery(opts)));
-  // The next batch is fetched while this one is processed, so PostgreSQL and Node work at the same time.
-  let next: Promise<FactsRow[]> | null = cursor.read(size);
-  try {
-    for (;;) {
-      const rows: FactsRow[] = await next;
-      next = null;
-      if (rows.length === 0) return;
-      next = cursor.read(size);
-      yield derived(rows, ctx);
-    }
-  } finally {
-    if (next) await next.catch(() => undefined);
-    await cursor.close();
-  }
+  for await (const rows of cursorBatches(cursor, size)) yield derived(rows, ctx);
 }

@@ -1,5 +1,6 @@
 import type pg from 'pg';
 import Cursor from 'pg-cursor';
+import { cursorBatches } from '../../db/cursor-batches';
 import type { FactsRow } from '../cohorts/derive';
 import { decodeRow } from './facts-row-text';
 
@@ -61,19 +62,7 @@ export async function* scanExportRows(client: pg.PoolClient, needs: ScanNeeds): 
   const { rows: clinics } = await client.query<{ id: number; region: string }>('select id, region from clinic');
   const regionOf = new Map(clinics.map((c) => [c.id, c.region]));
   const cursor = client.query(new Cursor<(string | null)[]>(exportFactsQuery(needs), [], { rowMode: 'array' }));
-  let next: Promise<(string | null)[][]> | null = cursor.read(BATCH);
-  try {
-    for (;;) {
-      const rows = await next;
-      next = null;
-      if (rows.length === 0) return;
-      next = cursor.read(BATCH);
-      yield decoded(rows, regionOf);
-    }
-  } finally {
-    if (next) await next.catch(() => undefined);
-    await cursor.close();
-  }
+  for await (const rows of cursorBatches(cursor, BATCH)) yield decoded(rows, regionOf);
 }
 
 /** Facts rows made one at a time as the consumer asks, so each dies young (less for the garbage collector). */
