@@ -13,7 +13,6 @@
  * The machine may be shared: compare figures with the load average and CPU times printed beside them.
  */
 import { fork, type ChildProcess } from 'node:child_process';
-import { existsSync, readFileSync } from 'node:fs';
 import type { AddressInfo } from 'node:net';
 import { availableParallelism, loadavg } from 'node:os';
 import { fileURLToPath } from 'node:url';
@@ -29,6 +28,7 @@ import { REQUESTABLE_GROUPS } from '../../shared/export-columns';
 import { CohortCriteriaSchema } from '../../shared/schemas/cohort';
 import { createDatabase, dropDatabase, ensurePostgres } from '../db';
 import { ownSeed } from './export-seed';
+import { cpuByPid, cpuOf, cpuSince, memoryOf } from './proc-cpu';
 
 const PASSWORD = 'bench-export-password';
 const argv = process.argv.slice(2);
@@ -45,12 +45,6 @@ async function serve(url: string): Promise<void> {
   process.on('message', (m) => m === 'exit' && process.exit(0));
 }
 
-/** CPU seconds (user + system) a process has used so far, from /proc/<pid>/stat. */
-const cpuOf = (pid: number) => {
-  const fields = readFileSync(`/proc/${pid}/stat`, 'utf8').split(') ')[1]!.split(' ');
-  return (Number(fields[11]) + Number(fields[12])) / 100; // utime, stime in clock ticks (USER_HZ = 100)
-};
-
 /** The PostgreSQL backends serving the benchmark database (to count their CPU too). */
 async function backendPids(db: Db): Promise<number[]> {
   const { rows } = await db.execute<{ pid: number }>(
@@ -58,16 +52,6 @@ async function backendPids(db: Db): Promise<number[]> {
   );
   return rows.map((r) => Number(r.pid));
 }
-const cpuByPid = (pids: number[]) => new Map(pids.filter((p) => existsSync(`/proc/${p}/stat`)).map((p) => [p, cpuOf(p)]));
-/** CPU the backends used since `before` (a backend that started meanwhile counts from zero). */
-const cpuSince = (before: Map<number, number>, now: Map<number, number>) =>
-  [...now].reduce((sum, [pid, cpu]) => sum + cpu - (before.get(pid) ?? 0), 0);
-
-const memoryOf = (pid: number) => {
-  const status = readFileSync(`/proc/${pid}/status`, 'utf8');
-  const kb = (field: string) => Number(new RegExp(`${field}:\\s+(\\d+) kB`).exec(status)?.[1] ?? NaN);
-  return { rssMb: kb('VmRSS') / 1024, peakMb: kb('VmHWM') / 1024 };
-};
 
 async function seed(db: Db, episodes: number): Promise<string> {
   if (!flag('--own-seed')) {

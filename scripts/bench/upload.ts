@@ -5,7 +5,8 @@
  *
  *   npm run bench:upload [-- --rows 100000]
  *
- * Targets: at least 20,000 rows/s committed, peak resident memory under 300 MB.
+ * Targets: at least 20,000 rows/s committed, peak resident memory under 300 MB. Besides wall time it prints the
+ * CPU time of Node and of every PostgreSQL process during each step (both share the machine's two cores).
  */
 import { spawnSync } from 'node:child_process';
 import { randomBytes } from 'node:crypto';
@@ -20,6 +21,7 @@ import { clinics, users } from '../../server/db/schema';
 import { uploadEpisodes } from '../../server/services/uploads.service';
 import { todayUtc } from '../../shared/follow-up-schedule';
 import { createDatabase, dropDatabase, ensurePostgres } from '../db';
+import { cpuByPid, cpuSince, postgresPids } from './proc-cpu';
 
 /** The upload file, made by a child process (see upload-csv.ts). */
 function makeFile(rows: number): Buffer {
@@ -64,17 +66,19 @@ async function main(): Promise<void> {
     for (const [label, dryRun] of [['dry run', true], ['commit', false], ['re-upload (no change)', false]] as const) {
       phasePeak = 0;
       const cpu = process.cpuUsage();
+      const pgBefore = cpuByPid(postgresPids());
       const started = performance.now();
       const answer = await uploadEpisodes(database.db, scope, file, dryRun);
       const seconds = (performance.now() - started) / 1000;
       const used = process.cpuUsage(cpu);
       const nodeCpu = (used.user + used.system) / 1e6;
+      const pgCpu = cpuSince(pgBefore, cpuByPid(postgresPids()));
       if (answer.status !== 200) throw new Error(`${label}: ${answer.status} ${JSON.stringify(answer.body.errors.slice(0, 3))}`);
       const c = answer.body.changes!;
       if (label === 'commit') commitRate = ROWS / seconds;
       console.log(
         `${label.padEnd(22)} ${seconds.toFixed(2)} s  ${Math.round(ROWS / seconds).toLocaleString('en').padStart(7)} rows/s  ` +
-          `(episodes +${c.episodesCreated} ~${c.episodesUpdated}, assessments +${c.assessmentsCreated} ~${c.assessmentsUpdated}, unchanged rows ${c.rowsUnchanged}), Node CPU ${nodeCpu.toFixed(1)} s, peak RSS ${mb(phasePeak)}`,
+          `(episodes +${c.episodesCreated} ~${c.episodesUpdated}, assessments +${c.assessmentsCreated} ~${c.assessmentsUpdated}, unchanged rows ${c.rowsUnchanged}), Node CPU ${nodeCpu.toFixed(1)} s, PostgreSQL CPU ${pgCpu.toFixed(1)} s, peak RSS ${mb(phasePeak)}`,
       );
     }
   } finally {
