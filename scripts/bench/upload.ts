@@ -14,7 +14,6 @@ import { mkdtempSync, readFileSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { gunzipSync } from 'node:zlib';
 import { openDatabase } from '../../server/db/client';
 import { migrateDatabase } from '../../server/db/migrate';
 import { clinics, users } from '../../server/db/schema';
@@ -60,7 +59,7 @@ async function main(): Promise<void> {
     const scope = { kind: 'clinic' as const, clinicId: clinic!.id, userId: user!.id };
 
     const packed = makeFile(ROWS);
-    const plainBytes = gunzipSync(packed).length;
+    const plainBytes = packed.readUInt32LE(packed.length - 4); // gzip's trailer states the unpacked size
     console.log(`file: ${ROWS.toLocaleString('en')} rows, ${mb(plainBytes)} as CSV, ${mb(packed.length)} gzip-compressed (uploaded: the limit is 10 MiB)`);
     const file = { buffer: packed, originalname: 'bench.csv.gz' };
     for (const [label, dryRun] of [['dry run', true], ['commit', false], ['re-upload (no change)', false]] as const) {

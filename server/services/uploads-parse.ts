@@ -1,6 +1,4 @@
-import { Readable } from 'node:stream';
-import { parse as parseStream, type Options } from 'csv-parse';
-import { CsvError, parse } from 'csv-parse/sync';
+import { CsvError, parse as parseStream, type Options } from 'csv-parse';
 import { UPLOAD_COLUMNS, UPLOAD_MAX_ROWS, type UploadColumn } from '../../shared/upload-columns';
 import type { UploadIssue } from '../../shared/schemas/upload';
 import { UploadRejected, type IssueLog } from './uploads-issues';
@@ -46,7 +44,7 @@ type OnRow = (cells: string[], row: number, header: Header) => void;
 
 /**
  * What every record goes through, whichever reader read it: the header, the width check, the row count and
- * limit. Row numbers are file lines (header = 1), as a spreadsheet shows them.
+ * limit. Row numbers are records (header = 1), as a spreadsheet shows them.
  */
 export class RowFeeder {
   header: Header | undefined;
@@ -59,12 +57,12 @@ export class RowFeeder {
   ) {}
 
   feed(record: string[], line: number): void {
+    if (record.every((c) => c.trim() === '')) return; // an empty line, or a spreadsheet's trailing ",,,," line
     if (!this.header) {
       this.header = readHeader(record);
       this.width = record.length;
       return;
     }
-    if (record.every((c) => c.trim() === '')) return; // a spreadsheet's trailing ",,,," line
     this.rows++;
     if (this.rows > UPLOAD_MAX_ROWS) return; // keep counting only; refused in finish()
     if (record.length !== this.width) {
@@ -86,58 +84,50 @@ export class RowFeeder {
   }
 }
 
-/** How uploads are read with csv-parse (one place, so both reading paths agree). */
-const CSV_OPTIONS: Options = { bom: true, relax_column_count: true, skip_empty_lines: true, max_record_size: 64 * 1024 };
+/**
+ * How uploads are read with csv-parse. Empty lines come through as records of one empty cell (skipped by the
+ * RowFeeder), so counting records gives each row's number as a spreadsheet shows it: an empty line is a row
+ * there too, and a cell holding line breaks does not add rows.
+ */
+const CSV_OPTIONS: Options = { bom: true, relax_column_count: true, skip_empty_lines: false, max_record_size: 64 * 1024 };
 
 /** csv-parse's complaint about the file as the upload's clear 422; anything else unchanged. */
-function asRejection(e: unknown): unknown {
+function asRejection(e: unknown, row: number): unknown {
   if (!(e instanceof CsvError)) return e;
-  const line = typeof e.lines === 'number' ? e.lines : 0;
-  return new UploadRejected(422, `The file is not valid CSV near line ${line}: ${e.message}`, [{ row: line, column: null, message: e.message }]);
+  const message = `The file is not valid CSV near row ${row}: ${e.message}`;
+  return new UploadRejected(422, message, [{ row, column: null, message }]);
 }
 
-function* slices(text: Buffer): Generator<Buffer> {
-  for (let at = 0; at < text.length; at += SLICE) yield text.subarray(at, at + SLICE);
-}
 const SLICE = 64 * 1024;
 
 /**
- * The file's records one at a time, each with its line (the header is line 1), read by csv-parse's streaming
- * parser: the caller can stop between records (to write a chunk) without holding every record.
+ * The file's records one at a time, each with its row number (the header is row 1), read by csv-parse's stream
+ * parser. It is written one 64 KiB slice at a time, only when the caller has taken every record of the slice
+ * before, and its records are taken synchronously as they are ready (csv-parse parses a slice within `write`):
+ * the caller can stop between records (to write a chunk) without the parser reading ahead into memory (given the
+ * whole file at once it held every record: 685 MB peak instead of about 300 MB), and no promise is made per
+ * record (measured: 0.83 s instead of 1.2 s for the 100,000-row bench file).
  */
-export async function* csvRecords(text: Buffer): AsyncGenerator<[string[], number]> {
-  const parser = parseStream({ ...CSV_OPTIONS, info: true });
-  // Fed in slices through a pipe, so the parser waits while the caller writes: given the whole file at once it
-  // would parse every record ahead into its buffer (measured: 685 MB peak instead of about 300 MB).
-  Readable.from(slices(text)).pipe(parser);
+export function* csvRecords(text: Buffer): Generator<[string[], number]> {
+  const parser = parseStream(CSV_OPTIONS);
+  parser.on('error', () => undefined); // seen synchronously through `errored` below
+  let row = 0;
   try {
-    for await (const entry of parser) {
-      const { record, info } = entry as { record: string[]; info: { lines: number } };
-      yield [record, info.lines];
+    for (let at = 0, last = false; !last; at += SLICE) {
+      last = at + SLICE >= text.length;
+      parser.write(text.subarray(at, at + SLICE));
+      if (last) parser.end();
+      for (let record: string[] | null; (record = parser.read() as string[] | null) !== null; ) yield [record, ++row];
+      if (parser.errored) throw asRejection(parser.errored, row + 1);
     }
-  } catch (e) {
-    throw asRejection(e);
   } finally {
     parser.destroy();
   }
 }
 
-/**
- * Parses the CSV text in one pass, handing each data row to `onRow` as soon as it is read (no copy of the
- * whole file as records), with csv-parse.
- */
+/** Parses the CSV text in one pass, handing each data row to `onRow` as soon as it is read (no copy of the file as records). */
 export function parseRows(text: Buffer, log: IssueLog, onRow: OnRow): { header: Header; rows: number } {
   const feeder = new RowFeeder(log, onRow);
-  try {
-    parse(text, {
-      ...CSV_OPTIONS,
-      on_record: (record: string[], ctx) => {
-        feeder.feed(record, ctx.lines);
-        return null;
-      },
-    });
-  } catch (e) {
-    throw e instanceof UploadRejected ? e : asRejection(e);
-  }
+  for (const [record, row] of csvRecords(text)) feeder.feed(record, row);
   return feeder.finish();
 }

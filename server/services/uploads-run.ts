@@ -65,7 +65,7 @@ export async function readStreamed(tx: Tx, client: pg.PoolClient | null, ctx: Ru
   };
   try {
     let n = 0;
-    for await (const [record, line] of csvRecords(text)) {
+    for (const [record, line] of csvRecords(text)) {
       feeder.feed(record, line);
       if (complete.length >= CHUNK) await flush();
       else if (++n % YIELD_EVERY === 0) await turn();

@@ -26,12 +26,19 @@ const ANALYZE_AFTER = 10_000;
 /**
  * Fresh planner statistics after a large upload. These tables have no foreign keys (drizzle/0012_ref_triggers.sql),
  * which the planner would otherwise use to size their joins; with statistics from before tens of thousands of new
- * rows it can choose nested loops over whole tables until autovacuum analyzes them. After the commit (about
- * 0.3 s for 100,000 rows; inside the transaction it took 1 s, the new rows being its own) and before answering,
- * so the next request is planned with them. A failure changes nothing committed: autovacuum redoes it later.
+ * rows it can choose nested loops over whole tables until autovacuum analyzes them. After the commit (inside the
+ * transaction it took 1 s, the new rows being its own) and before answering, so the next request is planned with
+ * them. What the planner lacked is the tables' sizes and rough distributions, so a sample of 7,500 rows a table
+ * (statistics target 25 instead of 100) does: measured on the 100,000-row bench, 0.08 s instead of 0.27 s; the
+ * next autovacuum analyze takes the full sample. A failure changes nothing committed: autovacuum redoes it later.
  */
 async function refreshStatistics(db: Db): Promise<void> {
-  await db.execute(sql`analyze episode, assessment, score, episode_intervention`).catch(() => undefined);
+  await db
+    .transaction(async (tx) => {
+      await tx.execute(sql`set local default_statistics_target = 25`);
+      await tx.execute(sql`analyze episode, assessment, score, episode_intervention`);
+    })
+    .catch(() => undefined);
 }
 
 function refused(dryRun: boolean, accepted: number, rejected: number, log: { issues: UploadResult['errors']; truncated: boolean }, message: string): UploadAnswer {

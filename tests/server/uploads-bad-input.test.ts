@@ -112,6 +112,18 @@ describe('CSV upload: bad input is refused clearly and writes nothing', () => {
     expect(res.body).toMatchObject({ accepted: 6, rejected: 3 });
     expect(res.body.errors.map((e: Issue) => e.row)).toEqual([5, 6, 7]);
   });
+  it('rows are numbered as a spreadsheet shows them: an empty line is a row, a cell with a line break is not two', async () => {
+    const [first, second, third] = episodeRows('N-1', 2).map((r) => csv([r]).split('\r\n')[1]!);
+    const broken = second!.replace('left', '"left\r\nright"'); // the side cell of row 4 spans two lines of the file
+    const scoreTooHigh = third!.replace(/,(\d+),(\d+),(\d+),,,/, ',12,$2,$3,,,');
+    const text = [HEADER.join(','), first, '', broken, scoreTooHigh, ''].join('\r\n');
+    await refuses(text, /Use one of: left, right/, { row: 4, column: 'side' });
+    await refuses(text, /12 is outside/, { row: 5, column: 'score_nprs_first_step' });
+  });
+  it('a quote left open is refused near the row where it opens', async () => {
+    const text = `${csv(episodeRows('O-1', 1))}O-2,"${'a'.repeat(10)}\r\n`;
+    await refuses(text, /not valid CSV near row 4: .*[Qq]uote/, { row: 4 });
+  });
   it('a file over 10 MiB is 413', () => refuses(Buffer.alloc(10 * 1024 * 1024 + 1, 'a'), /larger than 10 MiB/, undefined, 413));
   it('more than 100,000 rows is 413', async () => {
     const before = await snapshot(ctx.db);
