@@ -95,10 +95,9 @@ export class RowCollector {
     const known = this.episodes.get(reference);
     // Fast path: a row repeating its episode's first row exactly needs no second reading of the episode columns.
     const repeat = known !== undefined && known.rawCells !== null && this.sameEpisodeCells(known.rawCells, cells);
-    const epi: Record<string, unknown> = {};
+    const epi: Record<string, unknown> | null = repeat ? null : {};
     const asm: Record<string, unknown> = {};
     const scoreCells: Record<string, number | null> = {};
-    const keyParts: string[] = [];
     let bad: Set<string> | null = null; // fields whose cells could not be read
     const columns = header.columns;
     for (let i = 0; i < columns.length; i++) {
@@ -115,10 +114,8 @@ export class RowCollector {
         (bad ??= new Set()).add(col.field);
         continue;
       }
-      if (col.level === 'episode') {
-        epi[col.field] = value;
-        keyParts[i] = value === undefined ? '' : typeof value === 'object' ? JSON.stringify(value) : String(value);
-      } else if (col.level === 'assessment') asm[col.field] = value;
+      if (col.level === 'episode') epi![col.field] = value;
+      else if (col.level === 'assessment') asm[col.field] = value;
       else scoreCells[col.field] = (value as number | undefined) ?? null;
     }
     if (bad) {
@@ -127,7 +124,7 @@ export class RowCollector {
       return;
     }
     if (!reference) return;
-    const group = repeat ? (known.fields ? known : null) : this.episodeOf(reference, cells, keyParts.join('\u001f'), epi, row, header);
+    const group = repeat ? (known.fields ? known : null) : this.episodeOf(reference, cells, epi!, row, header);
     if (!group) {
       this.log.rejectedRows.add(row); // its episode's columns are not valid (reported on the episode's first row)
       return;
@@ -163,7 +160,10 @@ export class RowCollector {
     const dateProblems = typeof asm.assessedOn === 'string' ? dateIssues(asm.assessedOn) : null;
     for (const issue of dateProblems ?? []) this.log.add(row, 'assessed_on', plain(issue));
     const schema = dateProblems ? RowAssessmentSchema : AssessmentInputSchema;
-    const parsed = schema.safeParse({ ...asm, scores, avgDailySteps: asm.avgDailySteps ?? null, adverseEvent: asm.adverseEvent ?? null });
+    asm.scores = scores; // `asm` is this row's own object: completed in place, not copied
+    asm.avgDailySteps ??= null;
+    asm.adverseEvent ??= null;
+    const parsed = schema.safeParse(asm);
     let ok = unreadable === null && !(dateProblems && dateProblems.length > 0);
     if (!parsed.success) {
       ok = false;
@@ -191,9 +191,11 @@ export class RowCollector {
   }
 
   /** The episode a row belongs to; every row must repeat the first row's episode columns exactly. */
-  private episodeOf(reference: string, cells: string[], key: string, epi: Record<string, unknown>, row: number, header: Header): ReadEpisode | null {
+  private episodeOf(reference: string, cells: string[], epi: Record<string, unknown>, row: number, header: Header): ReadEpisode | null {
     const known = this.episodes.get(reference);
     if (known) {
+      // Both rows' episode cells as read (so "Yes" = "yes"); every cell of this row did read (else it was refused).
+      const key = this.convertedKey(this.episodeCells!.map((i) => cells[i]!), header);
       const first = this.convertedKey(known.rawCells ?? [], header);
       if (first !== key) this.reportConflict(known, first, key, row, header);
       return first === key && known.fields ? known : null;
@@ -212,7 +214,7 @@ export class RowCollector {
     return group;
   }
 
-  /** The episode columns of a first row, read as cells are read (only when a later row differs). */
+  /** A row's episode cells (in header order), read as cells are read: compared only when a later row differs from the first. */
   private convertedKey(raw: string[], header: Header): string {
     const parts: string[] = [];
     let k = 0;
