@@ -1,6 +1,6 @@
 import type pg from 'pg';
 import type { ReferenceData } from './reference.service';
-import { copyIn, copyValue as v } from './uploads-copy';
+import { copyIn, copyValue as v, CopyText } from './uploads-copy';
 import type { IdPool } from './uploads-ids';
 import type { PlannedAssessment, PlannedEpisode } from './uploads-plan';
 
@@ -28,7 +28,7 @@ const EPISODE = [
 ] as const;
 const ASSESSMENT = ['id', 'episode_id', 'assessed_on', 'timepoint', 'reporter', 'avg_daily_steps', 'adverse_event', 'created_by'] as const;
 
-export type NewRows = { episodes: string; interventions: string; assessments: string; scores: string };
+export type NewRows = { episodes: string[]; interventions: string[]; assessments: string[]; scores: string[] };
 
 /**
  * A chunk's new rows as COPY text: its new episodes, their interventions, the new assessments (of new and of
@@ -38,28 +38,30 @@ export type NewRows = { episodes: string; interventions: string; assessments: st
  */
 export function newRowsText(clinicId: number, userId: number | null, created: PlannedEpisode[], fresh: PlannedAssessment[], ref: ReferenceData, ids: IdPool): NewRows {
   const idOf = new Map<string, number>();
-  let episodes = '';
-  let interventions = '';
+  const episodes = new CopyText();
+  const interventions = new CopyText();
   for (const e of created) {
     const id = ids.episode();
     idOf.set(e.reference, id);
     const f = e.fields;
-    episodes += `${id}\t${clinicId}\t${v(userId)}\t${v(userId)}\t${v(f.pseudonym)}\t${v(f.reference)}\t${v(f.conditionCode)}\t${v(f.side)}\t${v(f.startDate)}\t${v(f.symptomWeeks)}\t${v(f.ageYears)}\t${v(f.sex)}\t${v(f.heightCm)}\t${v(f.weightKg)}\t${v(f.activityProfile)}\t${v(f.standingWork)}\t${v(f.researchConsent)}\t${v(f.status)}\t${v(f.dischargeDate)}\t${v(f.dischargeReason)}\n`;
-    for (const i of e.interventions ?? []) interventions += `${id}\t${i.codeId}\t${i.startWeek}\t${v(i.maxLevel)}\n`;
+    episodes.add(
+      `${id}\t${clinicId}\t${v(userId)}\t${v(userId)}\t${v(f.pseudonym)}\t${v(f.reference)}\t${v(f.conditionCode)}\t${v(f.side)}\t${v(f.startDate)}\t${v(f.symptomWeeks)}\t${v(f.ageYears)}\t${v(f.sex)}\t${v(f.heightCm)}\t${v(f.weightKg)}\t${v(f.activityProfile)}\t${v(f.standingWork)}\t${v(f.researchConsent)}\t${v(f.status)}\t${v(f.dischargeDate)}\t${v(f.dischargeReason)}\n`,
+    );
+    for (const i of e.interventions ?? []) interventions.add(`${id}\t${i.codeId}\t${i.startWeek}\t${v(i.maxLevel)}\n`);
   }
-  let assessments = '';
-  let scores = '';
+  const assessments = new CopyText();
+  const scores = new CopyText();
   for (const a of fresh) {
     const id = ids.assessment();
     const episodeId = a.episodeId ?? idOf.get(a.reference)!;
-    assessments += `${id}\t${episodeId}\t${v(a.assessedOn)}\t${v(a.timepoint)}\t${v(a.reporter)}\t${v(a.avgDailySteps)}\t${v(a.adverseEvent)}\t${v(userId)}\n`;
+    assessments.add(`${id}\t${episodeId}\t${v(a.assessedOn)}\t${v(a.timepoint)}\t${v(a.reporter)}\t${v(a.avgDailySteps)}\t${v(a.adverseEvent)}\t${v(userId)}\n`);
     for (const code in a.scores) {
       const value = a.scores[code];
       if (value === null || value === undefined) continue;
-      scores += `${id}\t${ref.instruments.get(code)!.id}\t${value}\n`;
+      scores.add(`${id}\t${ref.instruments.get(code)!.id}\t${value}\n`);
     }
   }
-  return { episodes, interventions, assessments, scores };
+  return { episodes: episodes.done(), interventions: interventions.done(), assessments: assessments.done(), scores: scores.done() };
 }
 
 /** Sends the COPY text: one COPY after the other (a connection takes one query at a time), parents first. */
