@@ -2,25 +2,27 @@ import type pg from 'pg';
 import { from as copyFrom } from 'pg-copy-streams';
 
 /**
- * COPY text made line by line, kept as pieces of about 16 kB. One string grown by `+=` for a whole chunk is a
- * rope thousands of levels deep that must be flattened before it is sent (measured: about twice the time of
- * the same text in pieces).
+ * COPY text made line by line, kept as UTF-8 pieces of about 16 kB. One string grown by `+=` for a whole chunk
+ * is a rope of one small object per line, flattened only when it is sent; until then the garbage collector
+ * copies every one of those objects from one young space to the other (measured: the 100,000-row commit's
+ * young collections took 0.85 s against 0.24 s for the same file's dry run). A piece becomes bytes as soon as
+ * it is full: one object, outside the young space.
  */
 export class CopyText {
-  readonly pieces: string[] = [];
+  readonly pieces: Buffer[] = [];
   private current = '';
 
   add(line: string): void {
     this.current += line;
     if (this.current.length >= 16_384) {
-      this.pieces.push(this.current);
+      this.pieces.push(Buffer.from(this.current));
       this.current = '';
     }
   }
 
   /** The pieces, the last one included (call once the last line is added). */
-  done(): string[] {
-    if (this.current !== '') this.pieces.push(this.current);
+  done(): Buffer[] {
+    if (this.current !== '') this.pieces.push(Buffer.from(this.current));
     this.current = '';
     return this.pieces;
   }
@@ -31,7 +33,7 @@ export class CopyText {
  * once PostgreSQL has taken them in (triggers included), rejects with its error (never left as an unhandled
  * stream error).
  */
-export function copyIn(client: pg.PoolClient, table: string, columns: readonly string[], pieces: readonly string[]): Promise<void> {
+export function copyIn(client: pg.PoolClient, table: string, columns: readonly string[], pieces: readonly Buffer[]): Promise<void> {
   if (pieces.length === 0) return Promise.resolve();
   return new Promise((resolve, reject) => {
     const stream = client.query(copyFrom(`copy ${table} (${columns.join(', ')}) from stdin`));

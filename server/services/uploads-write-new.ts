@@ -28,7 +28,7 @@ const EPISODE = [
 ] as const;
 const ASSESSMENT = ['id', 'episode_id', 'assessed_on', 'timepoint', 'reporter', 'avg_daily_steps', 'adverse_event', 'created_by'] as const;
 
-export type NewRows = { episodes: string[]; interventions: string[]; assessments: string[]; scores: string[] };
+export type NewRows = { episodes: Buffer[]; interventions: Buffer[]; assessments: Buffer[]; scores: Buffer[] };
 
 /**
  * A chunk's new rows as COPY text: its new episodes, their interventions, the new assessments (of new and of
