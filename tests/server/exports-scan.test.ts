@@ -122,26 +122,29 @@ describe('the export scan', () => {
 
 describe('decodeRow', () => {
   const regions = new Map([[7, 'Region, with "quotes"']]);
-  const text = ['plantar-heel-pain', 'female', 'runner', 'both', 'discharged', 'goals-met', '0 1 6 0 3 1 2'];
+  const texts = ['plantar-heel-pain', 'female', 'runner', 'both', 'discharged', 'goals-met'];
+  const row = (numbers: string, t = texts) => [numbers, ...t].join('\u001f');
 
-  it('reads numbers, the start date, an empty discharge day and the intervention ids', () => {
-    const row = decodeRow(['41 7 2024-02-29 52 170.43 65.27 13 1 1 -4 3 11', ...text], regions);
-    expect(row).toMatchObject({ id: 41, clinic_id: 7, region: 'Region, with "quotes"', start_date: '2024-02-29' });
-    expect(row).toMatchObject({ age_years: 52, height_cm: 170.43, weight_kg: 65.27, symptom_weeks: 13 });
-    expect(row).toMatchObject({
+  it('reads numbers, the start date, an empty discharge day, the intervention ids and the text fields', () => {
+    const read = decodeRow([row('41 7 2024-02-29 52 170.43 65.27 13 1 1 -4 3 11'), '0 1 6 0 3 1 2'], regions);
+    expect(read).toMatchObject({ id: 41, clinic_id: 7, region: 'Region, with "quotes"', start_date: '2024-02-29' });
+    expect(read).toMatchObject({ age_years: 52, height_cm: 170.43, weight_kg: 65.27, symptom_weeks: 13 });
+    expect(read).toMatchObject({
       standing_work: true,
       research_consent: true,
       discharge_day: -4,
       interventions: [3, 11],
     });
-    expect(row.scores).toBe('0 1 6 0 3 1 2');
-    const open = decodeRow(['42 7 2024-03-01 18 155.5 50 0 0 1 ', ...text.slice(0, 5), null, null], regions);
+    expect(read).toMatchObject({ condition_code: 'plantar-heel-pain', sex: 'female', activity_profile: 'runner', side: 'both' });
+    expect(read).toMatchObject({ status: 'discharged', discharge_reason: 'goals-met', scores: '0 1 6 0 3 1 2' });
+    const open = decodeRow([row('42 7 2024-03-01 18 155.5 50 0 0 1 ', [...texts.slice(0, 5), '']), null], regions);
     expect(open).toMatchObject({ discharge_day: null, interventions: null, discharge_reason: null, scores: null });
     expect(open).toMatchObject({ standing_work: false, weight_kg: 50 });
   });
 
   it('refuses a row it cannot read rather than guess', () => {
-    expect(() => decodeRow(['43 8 2024-03-01 18 155.5 50 0 0 1 ', ...text], regions)).toThrow(/unknown clinic/);
-    expect(() => decodeRow(['44 7 2024-03-01 1x8 155.5 50 0 0 1 ', ...text], regions)).toThrow(/unexpected/);
+    expect(() => decodeRow([row('43 8 2024-03-01 18 155.5 50 0 0 1 '), null], regions)).toThrow(/unknown clinic/);
+    expect(() => decodeRow([row('44 7 2024-03-01 1x8 155.5 50 0 0 1 '), null], regions)).toThrow(/unexpected/);
+    expect(() => decodeRow([row('45 7 2024-03-01 18 155.5 50 0 0 1 ', [...texts, 'extra']), null], regions)).toThrow(/8 fields instead of 7/);
   });
 });

@@ -4,8 +4,11 @@ import type { FactsRow } from '../cohorts/derive';
  * One row of the export's facts query (export-scan.ts) as the cohort engine's facts row: column 0 is the number
  * text "id clinic_id start_date age height weight symptom_weeks standing_work consent discharge_day
  * [intervention ids…]" (discharge_day empty when there is none), then condition, sex, activity profile, side,
- * status, discharge reason and the score text.
+ * status and discharge reason (empty when there is none), each after a unit separator (U+001F); column 1 is
+ * the score text.
  */
+const SEP = '\u001f';
+const FIELDS = 7;
 
 /**
  * Reads the number text of one row left to right. Integers are read digit by digit, as the cohort engine reads
@@ -47,7 +50,10 @@ class NumberText {
 
 /** One row of `exportFactsQuery` as the cohort engine's facts row. */
 export function decodeRow(r: readonly (string | null)[], regionOf: ReadonlyMap<number, string>): FactsRow {
-  const n = new NumberText(r[0]!);
+  const t = r[0]!.split(SEP);
+  // Codes and enum values never hold the separator; a row that does is refused rather than read shifted.
+  if (t.length !== FIELDS) throw new Error(`export: a row has ${t.length} fields instead of ${FIELDS}`);
+  const n = new NumberText(t[0]!);
   const id = n.int()!;
   const clinicId = n.int()!;
   const region = regionOf.get(clinicId);
@@ -66,21 +72,21 @@ export function decodeRow(r: readonly (string | null)[], regionOf: ReadonlyMap<n
     id,
     clinic_id: clinicId,
     region,
-    condition_code: r[1]!,
+    condition_code: t[1]!,
     start_date: startDate,
     age_years: age,
-    sex: r[2]!,
+    sex: t[2]!,
     height_cm: height,
     weight_kg: weight,
-    activity_profile: r[3]!,
+    activity_profile: t[3]!,
     standing_work: standing,
-    side: r[4]!,
+    side: t[4]!,
     symptom_weeks: weeks,
     research_consent: consent,
-    status: r[5]!,
-    discharge_reason: r[6] ?? null,
+    status: t[5]!,
+    discharge_reason: t[6] || null,
     discharge_day: dischargeDay,
-    scores: r[7] ?? null,
+    scores: r[1] ?? null,
     interventions,
   };
 }
