@@ -28,8 +28,9 @@ export class NotGrouped extends Error {
 
 /**
  * Reads the file as it checks and writes it, for the usual file whose rows come episode by episode: an episode
- * is complete once a row of another one follows, and every 1,000 complete episodes are planned and written
- * while the next rows are read, so PostgreSQL works while Node reads, and only a chunk's rows are held.
+ * is complete once a row of another one follows, and every 1,000 complete episodes are checked against what is
+ * stored, planned and written while the next rows are read, so PostgreSQL works while Node reads, and only two
+ * chunks' rows are held.
  * Throws NotGrouped when an episode's rows turn up again after it was planned, since planning needs all of an
  * episode's rows (`readWhole` then does it right).
  */
@@ -50,7 +51,11 @@ export async function readStreamed(tx: Tx, client: pg.PoolClient | null, ctx: Ru
     collector.add(cells, row, header);
   });
   let writer: ChunkWriter | undefined;
-  const flush = async () => {
+  // The chunk handed over last goes on being checked against what is stored, planned and written while the next
+  // rows are read (its queries and writes wait on PostgreSQL, and reading need not); one chunk at a time.
+  let inFlight: Promise<void> | null = null;
+  const handOver = async () => {
+    if (inFlight) await inFlight;
     const chunk: ReadEpisode[] = [];
     for (const reference of complete) {
       if (planned.has(reference)) continue; // an episode whose rows were split by another's, both still unplanned
@@ -61,20 +66,24 @@ export async function readStreamed(tx: Tx, client: pg.PoolClient | null, ctx: Ru
     }
     complete = [];
     writer ??= new ChunkWriter(tx, client, ctx, feeder.header!, () => collector.store);
-    await writer.add(chunk);
+    inFlight = writer.add(chunk);
+    inFlight.catch(() => undefined); // a failure is seen at the next hand-over or at the end, never unhandled
   };
   try {
     let n = 0;
     for (const [record, line] of csvRecords(text)) {
       feeder.feed(record, line);
-      if (complete.length >= CHUNK) await flush();
+      if (complete.length >= CHUNK) await handOver();
       else if (++n % YIELD_EVERY === 0) await turn();
     }
     if (current !== undefined) complete.push(current);
     const { rows } = feeder.finish();
-    await flush();
+    await handOver();
+    await inFlight;
     return { rows, summary: await writer!.finish() };
   } finally {
+    // Never leave a chunk's statements running, or their failure unobserved.
+    await (inFlight as Promise<void> | null)?.catch(() => undefined);
     await writer?.abandon();
   }
 }
