@@ -17,8 +17,8 @@ export type ScanNeeds = { scores: boolean; interventions: boolean };
  * row is two fields: the numbers, the start date and the intervention ids as one space-separated text (none of
  * them can hold a space) followed by the text fields, each after a unit separator (U+001F), then the score text
  * (measured: 104-166 ms of Node CPU to read the counting pass's rows, against 129-224 ms with one field per text);
- * the region comes from the clinic table once. Both passes see
- * the same rows in the same order (one snapshot, `order by e.id`). Only fixed text goes into it: no parameters.
+ * the region comes from the clinic table once. Both passes see the same rows in the same order (one snapshot,
+ * `order by e.id`). Only fixed text goes into it: no parameters.
  */
 export function exportFactsQuery(needs: ScanNeeds): string {
   const scores = needs.scores
