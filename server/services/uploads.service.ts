@@ -29,7 +29,7 @@ const ANALYZE_AFTER = 10_000;
  * rows it can choose nested loops over whole tables until autovacuum analyzes them. After the commit (inside the
  * transaction it took 1 s, the new rows being its own) and before answering, so the next request is planned with
  * them. What the planner lacked is the tables' sizes and rough distributions, so a sample of 7,500 rows a table
- * (statistics target 25 instead of 100) does: measured on the 100,000-row bench, 0.08 s instead of 0.27 s; the
+ * (statistics target 25 instead of 100) does: measured on the 100,000-row bench, 0.08-0.18 s instead of 0.27 s; the
  * next autovacuum analyze takes the full sample. A failure changes nothing committed: autovacuum redoes it later.
  */
 async function refreshStatistics(db: Db): Promise<void> {
