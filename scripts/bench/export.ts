@@ -105,9 +105,8 @@ async function signIn(base: string, email: string): Promise<string> {
  */
 function download(url: string, cookie: string, abortAfterBytes?: number) {
   const started = performance.now();
-  return new Promise<{ seconds: number; bytes: number; rows: number; headers: Headers }>((resolve, reject) => {
+  return new Promise<{ seconds: number; bytes: number; rows: number; headers: http.IncomingHttpHeaders }>((resolve, reject) => {
     const req = http.get(url, { headers: { cookie } }, (res) => {
-      const headers = new Headers(Object.entries(res.headers).flatMap(([k, v]) => (typeof v === 'string' ? [[k, v] as [string, string]] : [])));
       if (res.statusCode !== 200) {
         res.resume();
         reject(new Error(`download failed: ${res.statusCode}`));
@@ -115,7 +114,7 @@ function download(url: string, cookie: string, abortAfterBytes?: number) {
       }
       let bytes = 0;
       let lines = 0;
-      const done = () => resolve({ seconds: (performance.now() - started) / 1000, bytes, rows: lines - 1, headers });
+      const done = () => resolve({ seconds: (performance.now() - started) / 1000, bytes, rows: lines - 1, headers: res.headers });
       res.on('data', (chunk: Buffer) => {
         bytes += chunk.length;
         // indexOf rather than a loop over every byte, for the same reason.
@@ -180,7 +179,7 @@ async function main(): Promise<void> {
     const after = memoryOf(server.pid!);
     const cpu = { server: cpuOf(server.pid!) - serverCpuBefore, pg: cpuSince(pgBefore, cpuByPid(await backendPids(database.db))) };
     const rowsPerSecond = d.rows / d.seconds;
-    console.log(`bench: ${d.rows} rows (${(d.bytes / 1e6).toFixed(1)} MB; ${d.headers.get('x-export-generalised-rows')} generalised, ${d.headers.get('x-export-suppressed-rows')} suppressed) in ${d.seconds.toFixed(2)} s`);
+    console.log(`bench: ${d.rows} rows (${(d.bytes / 1e6).toFixed(1)} MB; ${d.headers['x-export-generalised-rows']} generalised, ${d.headers['x-export-suppressed-rows']} suppressed) in ${d.seconds.toFixed(2)} s`);
     console.log(`bench: ${Math.round(rowsPerSecond).toLocaleString('en')} rows/s, ${(d.bytes / 1e6 / d.seconds).toFixed(1)} MB/s (target >= 50,000 rows/s)`);
     console.log(
       `bench: CPU used: server ${cpu.server.toFixed(2)} s, PostgreSQL ${cpu.pg.toFixed(2)} s, this client ${((clientUsed.user + clientUsed.system) / 1e6).toFixed(2)} s; load average ${loadavg()[0]!.toFixed(1)} on ${availableParallelism()} CPUs (rows per CPU-second of the busier side: ${Math.round(d.rows / Math.max(cpu.server, cpu.pg, 0.01)).toLocaleString('en')})`,

@@ -9,7 +9,7 @@ import { from as copyFrom } from 'pg-copy-streams';
  * it is full: one object, outside the young space.
  */
 export class CopyText {
-  readonly pieces: Buffer[] = [];
+  private readonly pieces: Buffer[] = [];
   private current = '';
 
   add(line: string): void {

@@ -53,9 +53,9 @@ export async function readStreamed(tx: Tx, client: pg.PoolClient | null, ctx: Ru
   let writer: ChunkWriter | undefined;
   // The chunk handed over last goes on being checked against what is stored, planned and written while the next
   // rows are read (its queries and writes wait on PostgreSQL, and reading need not); one chunk at a time.
-  let inFlight: Promise<void> | null = null;
+  let inFlight: Promise<void> = Promise.resolve();
   const handOver = async () => {
-    if (inFlight) await inFlight;
+    await inFlight;
     const chunk: ReadEpisode[] = [];
     for (const reference of complete) {
       if (planned.has(reference)) continue; // an episode whose rows were split by another's, both still unplanned
@@ -83,7 +83,7 @@ export async function readStreamed(tx: Tx, client: pg.PoolClient | null, ctx: Ru
     return { rows, summary: await writer!.finish() };
   } finally {
     // Never leave a chunk's statements running, or their failure unobserved.
-    await (inFlight as Promise<void> | null)?.catch(() => undefined);
+    await inFlight.catch(() => undefined);
     await writer?.abandon();
   }
 }
